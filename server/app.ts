@@ -1,0 +1,70 @@
+import path from 'node:path';
+import fs from 'node:fs';
+import express from 'express';
+import helmet from 'helmet';
+import cookieParser from 'cookie-parser';
+import { pinoHttp } from 'pino-http';
+import pino from 'pino';
+import type { Sequelize } from 'sequelize';
+import type PgBoss from 'pg-boss';
+import { env } from './env';
+import { errorHandler, routeNotFound } from './lib/errors';
+import { apiRouter } from './routes';
+
+export interface AppDeps {
+  sequelize: Sequelize;
+  /** The job queue; without it (some tests) mail is not queued. */
+  boss?: PgBoss;
+  signInLimitPerEmail?: number;
+  signInLimitPerIp?: number;
+  /** Serve the exported web app from this folder when it exists. */
+  distDir?: string;
+  logLevel?: string;
+}
+
+export function createApp(deps: AppDeps) {
+  const app = express();
+  app.locals.deps = deps;
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // react-native-web writes its styles into <style> tags at run time.
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'script-src': ["'self'"],
+        },
+      },
+    }),
+  );
+  const logger = pino({ level: deps.logLevel ?? env.LOG_LEVEL });
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  app.use(cookieParser());
+  app.use('/api', express.json({ limit: '200kb' }), apiRouter(deps), routeNotFound);
+
+  if (deps.distDir && fs.existsSync(path.join(deps.distDir, 'index.html'))) serveWebApp(app, deps.distDir);
+
+  app.use(errorHandler);
+  return app;
+}
+
+function serveWebApp(app: express.Express, dist: string) {
+  app.use(
+    express.static(dist, {
+      index: false,
+      setHeaders(res, filePath) {
+        if (filePath.includes(`${path.sep}_expo${path.sep}`) || filePath.includes(`${path.sep}assets${path.sep}`)) {
+          res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+        }
+      },
+    }),
+  );
+  // SPA fallback; a file-like path that was not found stays a 404.
+  app.get('/{*splat}', (req, res, next) => {
+    if (path.extname(req.path)) return next();
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(path.resolve(dist, 'index.html'));
+  });
+}

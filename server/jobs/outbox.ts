@@ -1,0 +1,64 @@
+// pg-boss as the durable e-mail outbox: a job is written in the same transaction as the change
+// that caused it, and the worker retries until SMTP takes the message.
+import PgBoss from 'pg-boss';
+import type { Sequelize, Transaction } from 'sequelize';
+import type { Transporter } from 'nodemailer';
+import { env } from '../env';
+
+export const EMAIL_QUEUE = 'email-send';
+
+export interface EmailJob {
+  to: string[];
+  subject: string;
+  text: string;
+  html?: string;
+}
+
+export interface Outbox {
+  boss: PgBoss;
+  stop(): Promise<void>;
+}
+
+export async function startBoss(connectionString: string, opts: { retryDelaySeconds?: number } = {}) {
+  const boss = new PgBoss({ connectionString, schema: 'pgboss', max: 4, supervise: true, schedule: false });
+  boss.on('error', (err) => console.error('job queue error', err.message));
+  await boss.start();
+  await boss.createQueue(EMAIL_QUEUE, {
+    name: EMAIL_QUEUE,
+    retryLimit: 50,
+    retryDelay: opts.retryDelaySeconds ?? 5,
+    retryBackoff: false,
+  });
+  return boss;
+}
+
+// pg-boss passes undefined for unset options; Sequelize's bind refuses undefined.
+function txDb(sequelize: Sequelize, transaction: Transaction): PgBoss.Db {
+  return {
+    async executeSql(text, values) {
+      const bind = values.map((v) => (v === undefined ? null : v));
+      const [rows] = await sequelize.query(text, { bind, transaction, raw: true });
+      return { rows: rows as unknown[] } as { rows: never[] };
+    },
+  };
+}
+
+export function enqueueEmail(boss: PgBoss, job: EmailJob, tx?: { sequelize: Sequelize; transaction: Transaction }) {
+  return boss.send(EMAIL_QUEUE, job, tx ? { db: txDb(tx.sequelize, tx.transaction) } : {});
+}
+
+export async function startEmailWorker(boss: PgBoss, transport: Transporter, pollingIntervalSeconds = 1) {
+  return boss.work<EmailJob>(EMAIL_QUEUE, { batchSize: 5, pollingIntervalSeconds }, async (jobs) => {
+    for (const job of jobs) {
+      // Message-ID from the job id: a redelivered job is recognisable downstream.
+      await transport.sendMail({
+        from: env.MAIL_FROM,
+        to: job.data.to,
+        subject: job.data.subject,
+        text: job.data.text,
+        html: job.data.html,
+        messageId: `<${job.id}@toolgate.local>`,
+      });
+    }
+  });
+}

@@ -1,0 +1,31 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+// Append-only (a database trigger refuses UPDATE and DELETE).
+export class AuditEventModel extends Model<InferAttributes<AuditEventModel>, InferCreationAttributes<AuditEventModel>> {
+  declare id: CreationOptional<string>;
+  declare at: CreationOptional<Date>;
+  declare actorId: string | null;
+  declare actorName: string | null;
+  declare action: string;
+  declare entity: string;
+  declare entityId: string | null;
+  declare before: unknown;
+  declare after: unknown;
+
+  static initModel(sequelize: Sequelize) {
+    AuditEventModel.init(
+      {
+        id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
+        at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+        actorId: { type: DataTypes.UUID, allowNull: true },
+        actorName: { type: DataTypes.STRING(120), allowNull: true },
+        action: { type: DataTypes.STRING(64), allowNull: false },
+        entity: { type: DataTypes.STRING(64), allowNull: false },
+        entityId: { type: DataTypes.STRING(64), allowNull: true },
+        before: { type: DataTypes.JSONB, allowNull: true },
+        after: { type: DataTypes.JSONB, allowNull: true },
+      },
+      { sequelize, tableName: 'audit_events', timestamps: false },
+    );
+  }
+}

@@ -1,0 +1,25 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { roleSchema, updateUserInput } from '../../shared/schemas/users';
+import { actorOf, requireRole } from '../lib/auth';
+import { deps } from '../lib/validate';
+import * as users from '../services/users';
+
+const listQuery = z.object({ search: z.string().max(100).optional(), role: roleSchema.optional() });
+const idParam = z.object({ id: z.string().uuid({ message: 'Not a user id' }) });
+
+export function usersRouter() {
+  const r = Router();
+  r.use(requireRole('admin'));
+  r.get('/', async (req, res) => {
+    res.json({ data: await users.listUsers(listQuery.parse(req.query)), meta: {} });
+  });
+  r.post('/', async (req, res) => {
+    res.status(201).json(await users.createUser(deps(res), actorOf(res), req.body));
+  });
+  r.patch('/:id', async (req, res) => {
+    const { id } = idParam.parse(req.params);
+    res.json(await users.updateUser(deps(res), actorOf(res), id, updateUserInput.parse(req.body)));
+  });
+  return r;
+}
