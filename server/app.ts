@@ -42,12 +42,26 @@ export function createApp(deps: AppDeps) {
   const logger = pino({ level: deps.logLevel ?? env.LOG_LEVEL });
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
   app.use(cookieParser());
+  if (env.DEV_WEB_ORIGIN) app.use(devCors(env.DEV_WEB_ORIGIN));
   app.use('/api', express.json({ limit: '200kb' }), apiRouter(deps), routeNotFound);
 
   if (deps.distDir && fs.existsSync(path.join(deps.distDir, 'index.html'))) serveWebApp(app, deps.distDir);
 
   app.use(errorHandler);
   return app;
+}
+
+// Only for `npm run dev`, where Expo's dev server (another port) calls this API with the cookie.
+function devCors(origin: string): express.RequestHandler {
+  return (req, res, next) => {
+    if (req.get('origin') !== origin) return next();
+    res.setHeader('Access-Control-Allow-Origin', origin);
+    res.setHeader('Access-Control-Allow-Credentials', 'true');
+    res.setHeader('Access-Control-Allow-Headers', 'Content-Type, Authorization, Idempotency-Key, If-Match');
+    res.setHeader('Access-Control-Allow-Methods', 'GET, POST, PUT, PATCH, DELETE, OPTIONS');
+    if (req.method === 'OPTIONS') return void res.status(204).end();
+    next();
+  };
 }
 
 function serveWebApp(app: express.Express, dist: string) {

@@ -18,6 +18,7 @@ const envSchema = z.object({
   SIGN_IN_LIMIT_PER_EMAIL: z.coerce.number().int().min(1).default(10),
   SIGN_IN_LIMIT_PER_IP: z.coerce.number().int().min(1).default(100),
   DIST_DIR: z.string().default('dist'),
+  DEV_WEB_ORIGIN: z.string().url().optional(),
   SQL_LOG: z.stringbool().default(false),
 });
 

@@ -1,0 +1,24 @@
+// Seeds the demo scenario (idempotent): `npm run db:seed`. Also called by scripts/start.ts.
+import type { Sequelize } from 'sequelize';
+import { createSequelize } from '../db';
+import { initModels } from '../models';
+import { seedOrganisation } from './organisation';
+
+export async function seedDemo(sequelize: Sequelize) {
+  await sequelize.transaction(async (transaction) => {
+    const org = await seedOrganisation(transaction);
+    void org;
+  });
+}
+
+if (require.main === module) {
+  const sequelize = createSequelize();
+  initModels(sequelize);
+  seedDemo(sequelize)
+    .then(() => console.log('Demo data is in place.'))
+    .catch((err) => {
+      console.error('Seeding failed:', err);
+      process.exitCode = 1;
+    })
+    .finally(() => sequelize.close());
+}
