@@ -49,16 +49,26 @@ export function enqueueEmail(boss: PgBoss, job: EmailJob, tx?: { sequelize: Sequ
 
 export async function startEmailWorker(boss: PgBoss, transport: Transporter, pollingIntervalSeconds = 1) {
   return boss.work<EmailJob>(EMAIL_QUEUE, { batchSize: 5, pollingIntervalSeconds }, async (jobs) => {
+    // Each sent job is completed at once: a throw fails only the jobs still active, so one
+    // refused message does not make the others in the batch go out twice.
+    const failures: string[] = [];
     for (const job of jobs) {
-      // Message-ID from the job id: a redelivered job is recognisable downstream.
-      await transport.sendMail({
-        from: env.MAIL_FROM,
-        to: job.data.to,
-        subject: job.data.subject,
-        text: job.data.text,
-        html: job.data.html,
-        messageId: `<${job.id}@toolgate.local>`,
-      });
+      try {
+        // Message-ID from the job id: a redelivered job is recognisable downstream.
+        await transport.sendMail({
+          from: env.MAIL_FROM,
+          to: job.data.to,
+          subject: job.data.subject,
+          text: job.data.text,
+          html: job.data.html,
+          messageId: `<${job.id}@toolgate.local>`,
+        });
+      } catch (err) {
+        failures.push(`${job.id}: ${(err as Error).message}`);
+        continue;
+      }
+      await boss.complete(EMAIL_QUEUE, job.id);
     }
+    if (failures.length) throw new Error(`SMTP refused ${failures.length} of ${jobs.length} messages; they will be retried (${failures.join('; ')})`);
   });
 }

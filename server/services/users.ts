@@ -14,6 +14,9 @@ import { invitationMail } from '../mail/templates/invitation';
 const INVITE_DAYS = 7;
 const withBrands = [{ model: BrandModel, as: 'brands', attributes: ['id', 'name'], through: { attributes: [] } }];
 
+/** A brand listed twice is one assignment, not a clash in user_brands. */
+const unique = (ids: string[]) => [...new Set(ids)];
+
 export const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 
 export function toUserDto(u: UserModel): User {
@@ -40,7 +43,11 @@ export async function getMe(id: string): Promise<Me> {
 export async function listUsers(q: { search?: string; role?: string }): Promise<User[]> {
   const where: Record<string | symbol, unknown> = {};
   if (q.role) where.role = q.role;
-  if (q.search) where[Op.or] = [{ email: { [Op.iLike]: `%${q.search}%` } }, { name: { [Op.iLike]: `%${q.search}%` } }];
+  if (q.search) {
+    // The search text is matched literally: % and _ are not wildcards here.
+    const pattern = `%${q.search.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    where[Op.or] = [{ email: { [Op.iLike]: pattern } }, { name: { [Op.iLike]: pattern } }];
+  }
   const rows = await UserModel.findAll({ where, include: withBrands, order: [['name', 'ASC']] });
   return rows.map(toUserDto);
 }
@@ -77,8 +84,8 @@ export async function createUser(deps: AppDeps, actor: Actor, raw: CreateUserInp
       },
       { transaction },
     );
-    await (u as unknown as { setBrands(ids: string[], o: object): Promise<void> }).setBrands(input.brandIds, { transaction });
-    await recordAudit(transaction, actor, 'user.create', 'user', u.id, null, { email: u.email, role: u.role, brandIds: input.brandIds, factoryId: u.factoryId });
+    await (u as unknown as { setBrands(ids: string[], o: object): Promise<void> }).setBrands(unique(input.brandIds), { transaction });
+    await recordAudit(transaction, actor, 'user.create', 'user', u.id, null, { email: u.email, role: u.role, brandIds: unique(input.brandIds), factoryId: u.factoryId });
     if (deps.boss) {
       const link = `${env.PUBLIC_URL}/set-password?token=${encodeURIComponent(token)}`;
       await enqueueEmail(deps.boss, invitationMail({ to: u.email, name: u.name, role: u.role, invitedBy: actor.name, link, days: INVITE_DAYS }), {
@@ -96,11 +103,18 @@ export async function updateUser(deps: AppDeps, actor: Actor, id: string, input:
   const user = await UserModel.findByPk(id, { include: withBrands });
   if (!user) throw notFound('User');
   if (id === actor.id && (input.active === false || (input.role && input.role !== 'admin'))) {
-    throw new AppError('validation_failed', 'You cannot deactivate yourself or remove your own administrator role', 400);
+    throw new AppError('validation_failed', 'You cannot deactivate yourself or remove your own administrator role', 400, {
+      ...(input.active === false && { active: ['Another administrator must do this'] }),
+      ...(input.role && input.role !== 'admin' && { role: ['Another administrator must do this'] }),
+    });
   }
   const role = input.role ?? user.role;
   const factoryId = input.factoryId !== undefined ? input.factoryId : user.factoryId;
   if (role === 'toolmaker' && !factoryId) throw new AppError('validation_failed', 'A toolmaker needs a factory', 400, { factoryId: ['Pick the factory'] });
+  // A factory sent for someone who stays (or becomes) a non-toolmaker would otherwise be dropped silently.
+  if (role !== 'toolmaker' && input.factoryId) {
+    throw new AppError('validation_failed', 'Only toolmakers belong to a factory', 400, { factoryId: ['Only toolmakers belong to a factory'] });
+  }
   await checkRefs(input.brandIds, factoryId);
   const before = toUserDto(user);
   await deps.sequelize.transaction(async (transaction) => {
@@ -112,7 +126,7 @@ export async function updateUser(deps: AppDeps, actor: Actor, id: string, input:
       factoryId: role === 'toolmaker' ? factoryId : null,
     });
     await user.save({ transaction });
-    if (input.brandIds) await (user as unknown as { setBrands(ids: string[], o: object): Promise<void> }).setBrands(input.brandIds, { transaction });
+    if (input.brandIds) await (user as unknown as { setBrands(ids: string[], o: object): Promise<void> }).setBrands(unique(input.brandIds), { transaction });
     await user.reload({ include: withBrands, transaction });
     await recordAudit(transaction, actor, 'user.update', 'user', user.id, before, toUserDto(user));
   });
