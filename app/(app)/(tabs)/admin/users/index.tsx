@@ -1,0 +1,5 @@
+import { UserListScreen } from '@/features/admin/screens/user-list-screen';
+
+export default function UsersRoute() {
+  return <UserListScreen />;
+}

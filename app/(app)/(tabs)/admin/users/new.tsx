@@ -1,0 +1,5 @@
+import { UserCreateScreen } from '@/features/admin/screens/user-create-screen';
+
+export default function NewUserRoute() {
+  return <UserCreateScreen />;
+}

@@ -1,0 +1,5 @@
+import { InboxScreen } from '@/features/inbox/screens/inbox-screen';
+
+export default function InboxRoute() {
+  return <InboxScreen />;
+}
