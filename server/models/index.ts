@@ -5,6 +5,8 @@ import { AuditEventModel } from './audit-event';
 import { BrandModel } from './brand';
 import { CompanySettingModel } from './company-setting';
 import { FactoryModel } from './factory';
+import { initRegistryModels } from './registry';
+import { initRequestModels } from './requests';
 import { UserModel } from './user';
 
 export function initModels(sequelize: Sequelize) {
@@ -12,6 +14,10 @@ export function initModels(sequelize: Sequelize) {
 
   UserModel.belongsToMany(BrandModel, { through: 'user_brands', as: 'brands', foreignKey: 'userId', otherKey: 'brandId', timestamps: false });
   UserModel.belongsTo(FactoryModel, { as: 'factory', foreignKey: 'factoryId' });
+  initRegistryModels(sequelize);
+  initRequestModels(sequelize);
 }
 
 export { AuditEventModel, BrandModel, CompanySettingModel, FactoryModel, UserModel };
+export { BillOfPartsModel, PartModel, ProductModel, ToolModel, ToolRevisionModel } from './registry';
+export { AttachmentModel, ChangeItemModel, ChangeRequestModel, SignOffModel } from './requests';

@@ -6,6 +6,8 @@ import { authRouter } from './auth';
 import { healthRouter } from './health';
 import { meRouter } from './me';
 import { organisationRouter } from './organisation';
+import { registryRouter } from './registry';
+import { attachmentsRouter, requestsRouter } from './requests';
 import { usersRouter } from './users';
 
 export function apiRouter(deps: AppDeps) {
@@ -17,5 +19,8 @@ export function apiRouter(deps: AppDeps) {
   r.use('/me', meRouter());
   r.use('/users', usersRouter());
   r.use('/', organisationRouter());
+  r.use('/', registryRouter());
+  r.use('/requests', requestsRouter());
+  r.use('/attachments', attachmentsRouter());
   return r;
 }

@@ -3,11 +3,14 @@ import type { Sequelize } from 'sequelize';
 import { createSequelize } from '../db';
 import { initModels } from '../models';
 import { seedOrganisation } from './organisation';
+import { seedRegistry } from './registry';
+import { seedRequests } from './requests';
 
 export async function seedDemo(sequelize: Sequelize) {
   await sequelize.transaction(async (transaction) => {
     const org = await seedOrganisation(transaction);
-    void org;
+    const registry = await seedRegistry(transaction, org);
+    await seedRequests(transaction, org, registry);
   });
 }
 

@@ -3,7 +3,8 @@ import type { ImpactResult, BillOfPartsLine, ImpactPart, ImpactProduct, ImpactTo
 import type { SafetyReview } from '../domain/safety';
 import type { SteelDirection } from '../domain/steel-direction';
 import { requestActions, requestStates } from '../domain/lifecycle';
-import { changeItemFields, changeItemInput, changeItemSchema } from './change-items';
+import { checkItemConsistency } from '../domain/steel-direction';
+import { changeItemFields, changeItemSchema } from './change-items';
 
 // The contract of the change-request API (server and app both import it).
 
@@ -13,7 +14,8 @@ export type RequestStatus = z.infer<typeof requestStatusSchema>;
 /** Human reference of a request: CR-0007. */
 export const requestRef = (n: number) => `CR-${String(n).padStart(4, '0')}`;
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'Use a date like 2027-03-31' });
+/** A real calendar date (2027-02-31 is refused). */
+const isoDate = z.iso.date({ message: 'Use a date like 2027-03-31' });
 
 export const newDerivativeInput = z.object({
   sku: z
@@ -25,39 +27,76 @@ export const newDerivativeInput = z.object({
   name: z.string().trim().min(2, { message: 'Enter the product name' }).max(120),
 });
 
+/**
+ * A cut item as a request form sends it: `changeItemInput` plus the optional `id` of an item already
+ * on the request. Items are sent as the whole list; an item with the id of an existing item updates
+ * it in place (its attachments stay linked), one without an id is new, and an existing item left out
+ * of the list is removed.
+ */
+export const requestItemInput = changeItemFields.extend({ id: z.uuid().optional() }).superRefine((item, ctx) => {
+  const problem = checkItemConsistency(item);
+  if (problem) ctx.addIssue({ code: 'custom', path: ['method'], message: problem });
+});
+export type RequestItemInput = z.input<typeof requestItemInput>;
+
+const itemList = z
+  .array(requestItemInput)
+  .max(50, { message: 'At most 50 cut items on one request' })
+  .superRefine((items, ctx) => {
+    const seen = new Set<string>();
+    items.forEach((item, i) => {
+      if (!item.id) return;
+      if (seen.has(item.id)) ctx.addIssue({ code: 'custom', path: [i, 'id'], message: 'This item is listed twice' });
+      seen.add(item.id);
+    });
+  });
+
+const reasonField = z.string().trim().max(4000, { message: 'Keep the reason under 4000 characters' });
+const movedField = z
+  .array(z.uuid())
+  .max(200)
+  .refine((ids) => new Set(ids).size === ids.length, { message: 'Each product can be moved once' });
+
 const requestFields = {
   toolId: z.uuid({ message: 'Pick the tool to change' }),
   title: z.string().trim().min(4, { message: 'Give the change a short title (at least 4 characters)' }).max(160),
-  reason: z.string().trim().max(4000, { message: 'Keep the reason under 4000 characters' }).default(''),
+  reason: reasonField.default(''),
   derivativeProductId: z.uuid().nullable().default(null),
   /** Create the derivative product inline: it joins the tool's brand as in_line with 0 planned units. */
   newDerivative: newDerivativeInput.nullable().default(null),
   targetDate: isoDate.nullable().default(null),
-  items: z.array(changeItemInput).max(50, { message: 'At most 50 cut items on one request' }).default([]),
-  movedProductIds: z.array(z.uuid()).max(200).default([]),
+  items: itemList.default([]),
+  movedProductIds: movedField.default([]),
 };
 
-export const createRequestInput = z.object(requestFields).superRefine((v, ctx) => {
+const notBoth = (v: { derivativeProductId?: string | null; newDerivative?: unknown }, ctx: z.RefinementCtx) => {
   if (v.derivativeProductId && v.newDerivative) {
     ctx.addIssue({ code: 'custom', path: ['newDerivative'], message: 'Pick an existing product or create a new one, not both' });
   }
-});
+};
+
+export const createRequestInput = z.object(requestFields).superRefine(notBoth);
 export type CreateRequestInput = z.input<typeof createRequestInput>;
 
-/** Edits a draft (designer) or the items during review (engineer). `version` is what the editor saw. */
+/**
+ * Edits a draft (designer) or, during engineering review, the items, moved products and reason
+ * (engineer). Only the fields sent change (no defaults here, so a field left out is kept).
+ * `version` is the version the editor saw: a stale one is refused with 409 and the current copy.
+ */
 export const updateRequestInput = z
   .object({
     version: z.number().int().min(0),
     title: requestFields.title,
-    reason: requestFields.reason,
+    reason: reasonField,
     derivativeProductId: z.uuid().nullable(),
     newDerivative: newDerivativeInput.nullable(),
     targetDate: isoDate.nullable(),
-    items: z.array(changeItemInput).max(50, { message: 'At most 50 cut items on one request' }),
-    movedProductIds: z.array(z.uuid()).max(200),
+    items: itemList,
+    movedProductIds: movedField,
   })
   .partial()
-  .required({ version: true });
+  .required({ version: true })
+  .superRefine(notBoth);
 export type UpdateRequestInput = z.input<typeof updateRequestInput>;
 
 export const listRequestsQuery = z.object({
@@ -90,6 +129,16 @@ export const requestSummarySchema = z.object({
   version: z.number().int(),
 });
 export type RequestSummary = z.infer<typeof requestSummarySchema>;
+
+export const requestListResponseSchema = z.object({
+  data: z.array(requestSummarySchema),
+  meta: z.object({ nextCursor: z.string().nullable() }),
+});
+export type RequestListResponse = z.infer<typeof requestListResponseSchema>;
+
+/** The fields of a request that an edit can change (updateRequestInput without `version`). */
+export const editableRequestFields = ['title', 'reason', 'derivativeProductId', 'newDerivative', 'targetDate', 'items', 'movedProductIds'] as const;
+export type EditableRequestField = (typeof editableRequestFields)[number];
 
 export const attachmentKinds = ['before', 'after', 'sample', 'other'] as const;
 export const attachmentKindSchema = z.enum(attachmentKinds);
@@ -158,17 +207,26 @@ export const requestDetailSchema = requestSummarySchema.extend({
   createdAt: z.string(),
   /** What the caller may do now (the server re-checks every one of them). */
   permissions: z.object({
+    /** May change the request's own fields (the submitter on a draft). */
     canEdit: z.boolean(),
+    /** May change the cut items (the submitter on a draft, an engineer during review). */
     canEditItems: z.boolean(),
+    /** Exactly which fields of updateRequestInput the caller may change now (empty: none). */
+    editableFields: z.array(z.enum(editableRequestFields)),
     canUpload: z.boolean(),
+    /** Which attachment kinds the caller may upload (and delete) now. */
+    uploadKinds: z.array(attachmentKindSchema),
     actions: z.array(z.enum(requestActions)),
   }),
 });
 export type RequestDetail = z.infer<typeof requestDetailSchema>;
 
+/** The text fields sent with an upload (multipart/form-data, the file in field `file`). */
 export const uploadKindInput = z.object({
   kind: attachmentKindSchema,
-  itemId: z.uuid().optional(),
+  // A form sends an empty field for "no item".
+  itemId: z.preprocess((v) => (v === '' ? undefined : v), z.uuid({ message: 'Pick an item of this request' }).optional()),
 });
+export type UploadKindInput = z.input<typeof uploadKindInput>;
 
 export { changeItemFields };
