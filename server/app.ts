@@ -35,12 +35,25 @@ export function createApp(deps: AppDeps) {
           'style-src': ["'self'", "'unsafe-inline'"],
           'img-src': ["'self'", 'data:', 'blob:'],
           'script-src': ["'self'"],
+          // Served over plain HTTP on a LAN or localhost: never rewrite requests to https.
+          'upgrade-insecure-requests': null,
         },
       },
+      strictTransportSecurity: env.PUBLIC_URL.startsWith('https:'),
     }),
   );
   const logger = pino({ level: deps.logLevel ?? env.LOG_LEVEL });
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+      // One short line per request; never headers (they carry the session cookie).
+      serializers: {
+        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
+    }),
+  );
   app.use(cookieParser());
   if (env.DEV_WEB_ORIGIN) app.use(devCors(env.DEV_WEB_ORIGIN));
   app.use('/api', express.json({ limit: '200kb' }), apiRouter(deps), routeNotFound);
