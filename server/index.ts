@@ -8,6 +8,7 @@ import { startBoss, startEmailWorker } from './jobs/outbox';
 import { createTransport } from './mail/mailer';
 import { initModels } from './models';
 import { startSchedules } from './jobs/schedules';
+import { registerStageReminders } from './jobs/stage-reminders';
 
 export async function startServer(opts: { port?: number; databaseUrl?: string; distDir?: string } = {}) {
   const databaseUrl = opts.databaseUrl ?? env.DATABASE_URL;
@@ -15,6 +16,7 @@ export async function startServer(opts: { port?: number; databaseUrl?: string; d
   initModels(sequelize);
   const boss = await startBoss(databaseUrl);
   await startEmailWorker(boss, createTransport());
+  registerStageReminders();
   const stopSchedules = await startSchedules({ sequelize, boss });
   const app = createApp({ sequelize, boss, distDir: opts.distDir ?? path.resolve(env.DIST_DIR) });
   const server: Server = await new Promise((resolve) => {

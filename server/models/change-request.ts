@@ -40,6 +40,8 @@ export class ChangeRequestModel extends Model<InferAttributes<ChangeRequestModel
   declare acceptedByRoles: CreationOptional<string[]>;
   declare stageEnteredAt: CreationOptional<Date>;
   declare stageDueAt: CreationOptional<Date | null>;
+  /** The tool revision the change is made against, fixed at each sign-off before the cut (null: the tool's current one). */
+  declare baseRevision: CreationOptional<number | null>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -73,6 +75,7 @@ export class ChangeRequestModel extends Model<InferAttributes<ChangeRequestModel
         acceptedByRoles: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         stageEnteredAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
         stageDueAt: { type: DataTypes.DATE, allowNull: true },
+        baseRevision: { type: DataTypes.INTEGER, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -34,6 +34,10 @@ export class SignOffModel extends Model<InferAttributes<SignOffModel>, InferCrea
   declare prevHash: string;
   declare hash: string;
   declare idempotencyKey: string | null;
+  /** The request's signed content, as hashed into contentHash (canonical JSON of this value). */
+  declare content: Record<string, unknown>;
+  /** What the signer declared with the action (target, cut report, ticked products, re-test note). */
+  declare details: CreationOptional<Record<string, unknown>>;
 
   static initModel(sequelize: Sequelize) {
     SignOffModel.init(
@@ -55,6 +59,8 @@ export class SignOffModel extends Model<InferAttributes<SignOffModel>, InferCrea
         prevHash: { type: DataTypes.STRING(64), allowNull: false },
         hash: { type: DataTypes.STRING(64), allowNull: false },
         idempotencyKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
+        content: { type: DataTypes.JSONB, allowNull: false },
+        details: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
       },
       { sequelize, tableName: 'sign_offs', timestamps: false },
     );

@@ -5,10 +5,12 @@ import { requireAuth } from '../lib/auth';
 import { authRouter } from './auth';
 import { healthRouter } from './health';
 import { meRouter } from './me';
+import { numbersRouter } from './numbers';
 import { organisationRouter } from './organisation';
 import { registryRouter } from './registry';
 import { attachmentsRouter, requestsRouter } from './requests';
 import { usersRouter } from './users';
+import { inboxRouter, workflowRouter } from './workflow';
 
 export function apiRouter(deps: AppDeps) {
   const r = Router();
@@ -20,7 +22,10 @@ export function apiRouter(deps: AppDeps) {
   r.use('/users', usersRouter());
   r.use('/', organisationRouter());
   r.use('/', registryRouter());
+  r.use('/', numbersRouter());
   r.use('/requests', requestsRouter());
+  r.use('/requests', workflowRouter());
+  r.use('/inbox', inboxRouter());
   r.use('/attachments', attachmentsRouter());
   return r;
 }

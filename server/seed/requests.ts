@@ -9,11 +9,13 @@
 //    Rock Crawler reissue moved to the new revision, so it ends nothing. A draft.
 // Idempotent: a request is found by title and tool and left as it is.
 //
-// To add requests in later states (brand sign-off ... closed), add entries with that `status`; the
-// lifecycle's sign-offs for the steps before it belong with them (see `afterInsert`).
+// A request past draft gets there through the sign-off workflow itself (`history`, run by
+// server/seed/workflow.ts), so its sign-offs form a real, verifiable chain. The requests in the
+// later states (brand sign-off, cleared to cut, samples, closed, declined, withdrawn) are listed in
+// server/seed/workflow.ts.
 import sharp from 'sharp';
 import type { Transaction } from 'sequelize';
-import type { RequestState } from '../../shared/domain/lifecycle';
+import type { RequestAction, RequestState } from '../../shared/domain/lifecycle';
 import type { AttachmentKind, RequestItemInput } from '../../shared/schemas/change-requests';
 import { requestItemInput } from '../../shared/schemas/change-requests';
 import type { Actor } from '../lib/auth';
@@ -24,6 +26,7 @@ import { insertRequest } from '../services/requests';
 import { auditSnapshot } from '../services/request-views';
 import type { seedOrganisation } from './organisation';
 import type { seedRegistry } from './registry';
+import { runSeedHistory, workflowDemoRequests } from './workflow';
 
 type Org = Awaited<ReturnType<typeof seedOrganisation>>;
 type Registry = Awaited<ReturnType<typeof seedRegistry>>;
@@ -43,7 +46,19 @@ interface SeedImage {
   item?: number;
 }
 
-interface SeedRequest {
+/** One step of a seeded request's history, taken through the workflow as that user. */
+export interface SeedStep {
+  by: string;
+  action: RequestAction;
+  /** When, counted back from now (fractions of a day allowed). */
+  daysAgo: number;
+  comment?: string;
+  target?: 'engineering_review' | 'draft';
+  cut?: { actualCostCents: number; note: string };
+  retestNote?: string;
+}
+
+export interface SeedRequest {
   toolCode: string;
   title: string;
   reason: string;
@@ -54,6 +69,8 @@ interface SeedRequest {
   items: SeedItem[];
   movedSkus?: string[];
   images: SeedImage[];
+  /** The steps from draft to `status` (none for a draft). */
+  history?: SeedStep[];
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -113,6 +130,8 @@ export const demoRequests: SeedRequest[] = [
     targetInDays: 120,
     status: 'engineering_review',
     submitter: DESIGNER,
+    // Submitted by the designer; the browser journey takes it on from engineering review to closed.
+    history: [{ by: DESIGNER, action: 'submit', daysAgo: 1, comment: 'Storm Kite sculpt is final; the ridge is the only change to the head.' }],
     items: [
       {
         part: 'Head',
@@ -204,17 +223,15 @@ async function productIds(skus: readonly string[], transaction: Transaction) {
   return out;
 }
 
-/** Hook for the later states: the lifecycle adds the sign-offs that lead to `spec.status` here. */
+/** Takes the request from draft to `spec.status` through the workflow, so its sign-offs are real. */
 async function afterInsert(request: ChangeRequestModel, spec: SeedRequest, transaction: Transaction) {
-  if (spec.status === 'draft') return;
-  request.set({ status: spec.status, stageEnteredAt: new Date() });
-  await request.save({ transaction });
+  await runSeedHistory(transaction, request.id, spec, (email) => actorFor(email, transaction));
 }
 
 export async function seedRequests(transaction: Transaction, org: Org, registry: Registry) {
   void org; // the users are looked up by e-mail, so edited demo users are still found
   const out = new Map<string, ChangeRequestModel>();
-  for (const spec of demoRequests) {
+  for (const spec of [...demoRequests, ...workflowDemoRequests]) {
     const tool = registry.tools.get(spec.toolCode);
     if (!tool) throw new Error(`Seed tool ${spec.toolCode} is missing`);
     const existing = await ChangeRequestModel.findOne({ where: { title: spec.title, toolId: tool.id }, transaction });

@@ -2,6 +2,7 @@
 import type { Sequelize } from 'sequelize';
 import { createSequelize } from '../db';
 import { initModels } from '../models';
+import { seedNumbers } from './numbers';
 import { seedOrganisation } from './organisation';
 import { seedRegistry } from './registry';
 import { seedRequests } from './requests';
@@ -11,6 +12,7 @@ export async function seedDemo(sequelize: Sequelize) {
     const org = await seedOrganisation(transaction);
     const registry = await seedRegistry(transaction, org);
     await seedRequests(transaction, org, registry);
+    await seedNumbers(transaction);
   });
 }
 

@@ -161,6 +161,7 @@ export function permissionsFor(actor: Actor, r: RequestAccessFacts): RequestDeta
     editableFields,
     canUpload: uploadKinds.length > 0,
     uploadKinds,
-    actions: allowedActions(r.status, actor.role, actorContext(actor, r)),
+    // A disposed tool's requests are kept for reference only: nothing more is signed on them.
+    actions: r.tool.status === 'disposed' ? [] : allowedActions(r.status, actor.role, actorContext(actor, r)),
   };
 }

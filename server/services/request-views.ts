@@ -31,6 +31,8 @@ import {
 } from '../models';
 import { canSeeRequest, permissionsFor, type RequestAccessFacts } from './request-access';
 import { iso } from './registry-common';
+import { loadSignOffs } from './sign-off-chain';
+import { contextAsSigned, workflowView } from './workflow-view';
 
 // ---------------------------------------------------------------------------------------------
 // Impact context: the tool, its parts, the products made from it and their bill lines on it
@@ -212,9 +214,12 @@ export function toSummary(r: ChangeRequestModel): RequestSummary {
 export async function buildDetail(actor: Actor, r: ChangeRequestModel, transaction?: Transaction): Promise<RequestDetail> {
   const items = await loadItems(r.id, transaction);
   const attachments = await loadAttachments(r.id, transaction);
-  const context = await loadImpactContext(r.toolId, transaction);
+  // Once released to the factory, the impact is shown as it was signed (workflow-view.ts).
+  const context = await contextAsSigned(await loadImpactContext(r.toolId, transaction), r, transaction);
   const impact = impactOf(context, items, r.movedProductIds, r.estimate);
   const t = r.tool!;
+  const permissions = permissionsFor(actor, accessFacts(r));
+  const view = workflowView({ r, actions: permissions.actions, impact, retestRequired: retestRequired(items), items, tool: t, signOffs: await loadSignOffs(r.id, transaction) });
   return {
     ...toSummary(r),
     reason: r.reason,
@@ -236,7 +241,9 @@ export async function buildDetail(actor: Actor, r: ChangeRequestModel, transacti
     retestRequired: retestRequired(items),
     retestNote: r.retestNote ?? null,
     createdAt: iso(r.createdAt),
-    permissions: permissionsFor(actor, accessFacts(r)),
+    permissions,
+    signOffs: view.signOffs,
+    workflow: view.workflow,
   };
 }
 

@@ -20,6 +20,7 @@ import type { Actor } from '../lib/auth';
 import { AppError } from '../lib/errors';
 import { BillOfPartsModel, CompanySettingModel, PartModel, ProductModel, ToolModel, ToolRevisionModel } from '../models';
 import { recordAudit } from './audit';
+import { openChangesOf } from './request-numbers';
 import {
   RETENTION_SETTING_KEY,
   assertEditable,
@@ -219,7 +220,7 @@ export async function getToolDetail(actor: Actor, id: string): Promise<ToolDetai
     ...toToolDto(tool, view),
     parts: parts.map((p) => ({ ...toPartDto(p), productCount: productCount.get(p.id)?.size ?? 0 })),
     revisions: revisions.map((r) => ({ ...toRevisionDto(r), isCurrent: r.number === tool.currentRevision, products: revisionProducts(r.number) })),
-    openChanges: [],
+    openChanges: await openChangesOf(actor, tool.id),
     handling: handlingFor(tool.weightKg),
   };
 }

@@ -5,6 +5,7 @@ import type { SteelDirection } from '../domain/steel-direction';
 import { requestActions, requestStates } from '../domain/lifecycle';
 import { checkItemConsistency } from '../domain/steel-direction';
 import { changeItemFields, changeItemSchema } from './change-items';
+import { signOffSchema, workflowInfoSchema } from './sign-offs';
 
 // The contract of the change-request API (server and app both import it).
 
@@ -218,6 +219,10 @@ export const requestDetailSchema = requestSummarySchema.extend({
     uploadKinds: z.array(attachmentKindSchema),
     actions: z.array(z.enum(requestActions)),
   }),
+  /** The sign-off timeline, oldest first (optional: added by the sign-off workflow). */
+  signOffs: z.array(signOffSchema).optional(),
+  /** Due date, who it waits for, what each of my actions needs, the irreversible guard. */
+  workflow: workflowInfoSchema.optional(),
 });
 export type RequestDetail = z.infer<typeof requestDetailSchema>;
 

@@ -266,7 +266,7 @@ export const revisionProductSchema = z.object({
   reason: z.string(),
 });
 
-/** Placeholder until change requests exist: always an empty list for now. */
+/** The tool's change requests that are not closed, declined or withdrawn, as far as the caller may see them. */
 export const openChangeSchema = z.object({ id: z.string().uuid(), title: z.string(), status: z.string() });
 
 export const toolDetailSchema = toolSchema.extend({

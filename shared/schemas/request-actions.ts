@@ -1,8 +1,24 @@
 import { z } from 'zod';
 import { requestActions, requestStates } from '../domain/lifecycle';
+import { requestDetailSchema } from './change-requests';
+import { signOffSchema } from './sign-offs';
 
 export const requestStateSchema = z.enum(requestStates);
 export const requestActionSchema = z.enum(requestActions);
+
+/** The cut as the engineer or the factory's toolmaker reports it with "Record the cut as done". */
+export const cutReportInput = z.object({
+  /** What the change actually cost, in whole cents (the tool's currency). */
+  actualCostCents: z
+    .number({ message: 'Enter the actual cost in cents' })
+    .int({ message: 'Whole cents only' })
+    .min(0, { message: 'The cost cannot be negative' })
+    .max(100_000_000_00, { message: 'That cost is too large' }),
+  /** The day the tool was cut (not in the future). */
+  cutOn: z.iso.date({ message: 'Use a date like 2027-03-31' }),
+  note: z.string().trim().max(4000, { message: 'Keep the note under 4000 characters' }).default(''),
+});
+export type CutReportInput = z.input<typeof cutReportInput>;
 
 /**
  * What a client sends to take an action on a change request. `version` is the request version the
@@ -19,9 +35,26 @@ export const takeActionInput = z.object({
   confirmedProductIds: z.array(z.uuid()).max(500).optional(),
   typedToolCode: z.string().trim().max(40).optional(),
   retestNote: z.string().trim().max(4000, { message: 'Keep the re-test note under 4000 characters' }).optional(),
+  /** Only with record_cut, where it is required: the actual cost, the date and a note. */
+  cut: cutReportInput.optional(),
 }).superRefine((v, ctx) => {
   if (v.target !== undefined && v.action !== 'return') {
     ctx.addIssue({ code: 'custom', path: ['target'], message: 'Only "Send back" from brand sign-off takes a target' });
   }
+  if (v.cut !== undefined && v.action !== 'record_cut') {
+    ctx.addIssue({ code: 'custom', path: ['cut'], message: 'Only "Record the cut as done" takes a cut report' });
+  }
 });
 export type TakeActionInput = z.infer<typeof takeActionInput>;
+
+/**
+ * The answer to POST /api/requests/:id/actions: the request as it is now, and the sign-off written
+ * (or, for a retried call with the same Idempotency-Key, the one written the first time).
+ */
+export const takeActionResponseSchema = z.object({
+  request: requestDetailSchema,
+  signOff: signOffSchema,
+  /** True when this answers a retry: nothing new was signed. */
+  replayed: z.boolean(),
+});
+export type TakeActionResponse = z.infer<typeof takeActionResponseSchema>;

@@ -1,0 +1,80 @@
+// Helpers for the sign-off workflow tests: take an action through the API as a user, and walk a
+// fresh request of a scene (request-fixtures.ts) to any state through the real actions.
+import { randomUUID } from 'node:crypto';
+import type { RequestAction, RequestState } from '../../shared/domain/lifecycle';
+import { ChangeRequestModel, SignOffModel } from '../../server/models';
+import { PASSWORD, request, type openTestApp } from './helpers';
+import { createDraft, insertItem, ridgeItem, type Scene } from './request-fixtures';
+
+type App = ReturnType<typeof openTestApp>['app'];
+export type SceneUser = Scene['users'][keyof Scene['users']];
+
+export const CUT = { actualCostCents: 412_500, cutOn: '2026-11-20', note: 'Ridge cut in both head cavities; EDM finish.' };
+
+/** What each action needs beyond its name, for a request that passes every check. */
+export async function bodyFor(id: string, action: RequestAction, extra: Record<string, unknown> = {}) {
+  const r = (await ChangeRequestModel.findByPk(id, { include: [{ association: 'tool', attributes: ['code'] }] }))!;
+  const body: Record<string, unknown> = { action, version: r.version };
+  if (['return_to_draft', 'return', 'decline', 'rework', 'withdraw'].includes(action)) body.comment = `Because ${action}`;
+  if (action === 'record_cut') body.cut = CUT;
+  if (action === 'approve' && r.irreversible) {
+    body.password = PASSWORD;
+    body.typedToolCode = r.tool!.code;
+    body.confirmedProductIds = [...r.endedProductIds];
+  }
+  if (action === 'accept_samples' && r.retestRequired) body.retestNote = 'Small-parts cylinder and sharp-edge checks passed at the accredited lab, report 4471.';
+  return { ...body, ...extra };
+}
+
+export function actWith(app: App) {
+  return async function act(user: SceneUser, id: string, action: RequestAction, extra: Record<string, unknown> = {}, key?: string) {
+    const req = request(app).post(`/api/requests/${id}/actions`).set(user.auth);
+    if (key) req.set('Idempotency-Key', key);
+    return req.send(await bodyFor(id, action, extra));
+  };
+}
+
+/** The actions (and who takes them) that lead from a draft to each state. */
+export function pathTo(s: Scene, state: RequestState): [SceneUser, RequestAction][] {
+  const { designer, engineer, lead } = s.users;
+  const toApproval: [SceneUser, RequestAction][] = [
+    [designer, 'submit'],
+    [engineer, 'sign_review'],
+  ];
+  switch (state) {
+    case 'draft':
+      return [];
+    case 'engineering_review':
+      return [[designer, 'submit']];
+    case 'brand_approval':
+      return toApproval;
+    case 'cut_authorized':
+      return [...toApproval, [lead, 'approve']];
+    case 'samples_review':
+      return [...toApproval, [lead, 'approve'], [engineer, 'record_cut']];
+    case 'closed':
+      return [...toApproval, [lead, 'approve'], [engineer, 'record_cut'], [designer, 'accept_samples'], [engineer, 'accept_samples']];
+    case 'declined':
+      return [...toApproval, [lead, 'decline']];
+    case 'withdrawn':
+      return [[designer, 'withdraw']];
+  }
+}
+
+/**
+ * A fresh request of the scene in `state`, reached through the API. `kind`: 'insert' (a replacement
+ * insert: can be undone, ends nothing) or 'ridge' (steel cut from the head: cannot be undone).
+ */
+export async function requestIn(app: App, s: Scene, state: RequestState, kind: 'insert' | 'ridge' = 'insert', body: Record<string, unknown> = {}) {
+  const item = kind === 'insert' ? insertItem(s.visor.id) : ridgeItem(s.head.id);
+  const d = await createDraft(app, s, { items: [item], ...body });
+  const act = actWith(app);
+  for (const [user, action] of pathTo(s, state)) {
+    const res = await act(user, d.id, action);
+    if (res.status !== 201) throw new Error(`${action} failed on the way to ${state}: ${res.status} ${JSON.stringify(res.body)}`);
+  }
+  return d.id;
+}
+
+export const signOffCount = (requestId: string) => SignOffModel.count({ where: { requestId } });
+export const key = () => randomUUID();
