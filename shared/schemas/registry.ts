@@ -627,10 +627,10 @@ const intCell = (field: z.ZodNumber) =>
     .regex(/^\d+$/, { message: 'Use a whole number (digits only)' })
     .transform((s) => Number(s))
     .pipe(field);
-const optionalIntCell = (field: z.ZodNumber) => z.union([z.undefined(), z.literal('').transform(() => undefined), intCell(field)]);
-const optionalDateCell = z.union([z.undefined(), z.literal('').transform(() => undefined), isoDateSchema]);
+const optionalIntCell = (field: z.ZodNumber) => z.union([z.undefined(), z.literal('').transform(() => undefined), intCell(field)]).optional();
+const optionalDateCell = z.union([z.undefined(), z.literal('').transform(() => undefined), isoDateSchema]).optional();
 /** Money as typed: "45000.00"; turned into cents by the importer once the row's currency is known. */
-const moneyCell = z.union([z.undefined(), z.literal('').transform(() => undefined), z.string().trim().regex(/^(\d+|\d{1,3}(,\d{3})+)(\.\d+)?$/, { message: 'Use an amount like 45000.00 or 45,000.00 (no currency sign)' })]);
+const moneyCell = z.union([z.undefined(), z.literal('').transform(() => undefined), z.string().trim().regex(/^(\d+|\d{1,3}(,\d{3})+)(\.\d+)?$/, { message: 'Use an amount like 45000.00 or 45,000.00 (no currency sign)' })]).optional();
 
 export const toolCsvRow = z.object({
   code: toolCodeSchema,
@@ -646,14 +646,14 @@ export const toolCsvRow = z.object({
     z.undefined(),
     z.literal('').transform(() => undefined),
     z.string().trim().regex(/^\d+(\.\d{1,2})?$/, { message: 'Use kilograms like 850 or 850.5' }).transform(Number).pipe(weightKgSchema),
-  ]),
+  ]).optional(),
   build_cost: moneyCell,
-  currency: z.union([z.undefined(), z.literal('').transform(() => undefined), currencySchema]),
+  currency: z.union([z.undefined(), z.literal('').transform(() => undefined), currencySchema]).optional(),
   build_date: optionalDateCell,
   shot_count: optionalIntCell(shotCountSchema),
   last_run_date: optionalDateCell,
   /** active, idle or retained; in_change and disposed are accepted only where the tool already has them (re-imported exports). */
-  status: z.union([z.undefined(), z.literal('').transform(() => undefined), cell.toLowerCase().pipe(toolStatusSchema)]),
+  status: z.union([z.undefined(), z.literal('').transform(() => undefined), cell.toLowerCase().pipe(toolStatusSchema)]).optional(),
   storage_location: optionalCell,
 });
 export type ToolCsvRow = z.output<typeof toolCsvRow>;
@@ -670,11 +670,11 @@ export const productCsvRow = z.object({
   sku: skuSchema,
   name: nameSchema('product name'),
   brand_code: cell.toUpperCase().min(1, { message: 'Enter the brand code' }),
-  status: z.union([z.undefined(), z.literal('').transform(() => undefined), cell.toLowerCase().pipe(productStatusSchema)]),
+  status: z.union([z.undefined(), z.literal('').transform(() => undefined), cell.toLowerCase().pipe(productStatusSchema)]).optional(),
   fob: moneyCell,
   wholesale: moneyCell,
   retail: moneyCell,
-  currency: z.union([z.undefined(), z.literal('').transform(() => undefined), currencySchema]),
+  currency: z.union([z.undefined(), z.literal('').transform(() => undefined), currencySchema]).optional(),
   planned_units: optionalIntCell(z.number().int().min(0).max(2_000_000_000)),
 });
 export type ProductCsvRow = z.output<typeof productCsvRow>;

@@ -12,6 +12,8 @@ export interface ApiInit {
   query?: Record<string, string | number | boolean | undefined | null>;
   signal?: AbortSignal;
   headers?: Record<string, string>;
+  /** Sent as is with its own content type (e.g. a CSV file) instead of a JSON body. */
+  text?: { body: string; contentType: string };
 }
 
 export function apiUrl(path: string, query?: ApiInit['query']): string {
@@ -35,7 +37,8 @@ export function errorFromResponse(status: number, text: string): ApiError {
   const parsed = apiErrorSchema.safeParse(body);
   if (parsed.success) {
     const { code, message, fieldErrors } = parsed.data.error;
-    return new ApiError(status, code, message, fieldErrors);
+    // Keep the rest of the error body (e.g. `current` on stale_version) for screens that use it.
+    return new ApiError(status, code, message, fieldErrors, (body as { error: Record<string, unknown> }).error);
   }
   if (status === 401) return new ApiError(status, 'unauthorized', 'Sign in to continue.');
   if (status === 403) return new ApiError(status, 'forbidden', 'Your role may not do this.');
@@ -63,13 +66,14 @@ export async function apiRequest(path: string, schema: null, init?: ApiInit): Pr
 export async function apiRequest<S extends z.ZodType>(path: string, schema: S | null, init: ApiInit = {}): Promise<z.output<S> | void> {
   const headers: Record<string, string> = { Accept: 'application/json', ...init.headers };
   if (init.body !== undefined) headers['Content-Type'] = 'application/json';
+  else if (init.text) headers['Content-Type'] = init.text.contentType;
   let res: Response;
   try {
     res = await fetch(apiUrl(path, init.query), {
-      method: init.method ?? (init.body !== undefined ? 'POST' : 'GET'),
+      method: init.method ?? (init.body !== undefined || init.text ? 'POST' : 'GET'),
       credentials: 'include',
       headers,
-      body: init.body !== undefined ? JSON.stringify(init.body) : undefined,
+      body: init.body !== undefined ? JSON.stringify(init.body) : init.text?.body,
       signal: init.signal,
     });
   } catch (e) {

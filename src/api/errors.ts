@@ -6,13 +6,16 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fieldErrors?: Record<string, string[]>;
+  /** The whole `error` object of the answer, for codes that carry more (stale_version's `current`). */
+  readonly details?: Record<string, unknown>;
 
-  constructor(status: number, code: string, message: string, fieldErrors?: Record<string, string[]>) {
+  constructor(status: number, code: string, message: string, fieldErrors?: Record<string, string[]>, details?: Record<string, unknown>) {
     super(message);
     this.name = 'ApiError';
     this.status = status;
     this.code = code;
     this.fieldErrors = fieldErrors;
+    this.details = details;
   }
 }
 

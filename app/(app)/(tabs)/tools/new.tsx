@@ -1,0 +1,5 @@
+import { ToolCreateScreen } from '@/features/tools/screens/tool-edit-screen';
+
+export default function NewToolRoute() {
+  return <ToolCreateScreen />;
+}
