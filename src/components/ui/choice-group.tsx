@@ -89,6 +89,8 @@ const styles = StyleSheet.create({
   group: { gap: space.xs, alignSelf: 'stretch' },
   options: { flexDirection: 'row', flexWrap: 'wrap', gap: space.sm },
   chip: {
+    // A long hint wraps inside the chip instead of pushing it past the edge.
+    maxWidth: '100%',
     flexDirection: 'row',
     alignItems: 'center',
     gap: space.sm,
