@@ -68,7 +68,7 @@ export async function migrateAndSeed(databaseUrl: string) {
 export async function bringUp(opts: { databaseUrl: string; port: number; smtpPort: number; mailHttpPort: number }) {
   await migrateAndSeed(opts.databaseUrl);
   const mail = await startSmtpFake({ smtpPort: opts.smtpPort, httpPort: opts.mailHttpPort });
-  const server = await startServer({ port: opts.port, databaseUrl: opts.databaseUrl, distDir: path.join(root, 'dist') });
+  const server = await startServer({ port: opts.port, databaseUrl: opts.databaseUrl, distDir: process.env.DIST_DIR || path.join(root, 'dist') });
   return {
     async stop() {
       await server.stop();
