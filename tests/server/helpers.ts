@@ -1,4 +1,4 @@
-import { randomUUID } from 'node:crypto';
+import { randomBytes, randomUUID } from 'node:crypto';
 import request from 'supertest';
 import type { Sequelize } from 'sequelize';
 import { createApp, type AppDeps } from '../../server/app';
@@ -33,8 +33,11 @@ export function openTestApp(extra: Partial<AppDeps> = {}) {
 
 export const uid = () => randomUUID().slice(0, 8);
 
+/** 5 random base-36 characters: 60 million codes, so parallel test files do not collide. */
+const brandCode = () => `B${Array.from(randomBytes(5), (b) => '0123456789ABCDEFGHIJKLMNOPQRSTUVWXYZ'[b % 36]).join('')}`;
+
 export async function makeBrand(name = `Brand ${uid()}`) {
-  return BrandModel.create({ code: `B${uid().slice(0, 4).toUpperCase()}`, name });
+  return BrandModel.create({ code: brandCode(), name });
 }
 
 export async function makeFactory(name = `Factory ${uid()}`) {

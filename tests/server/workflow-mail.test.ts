@@ -172,7 +172,9 @@ describe('overdue reminders', () => {
     const id = await requestIn(t.app, s, 'brand_approval', 'ridge');
     const ref = await refOf(id);
     await mailsFor(ref, 'Awaiting brand sign-off', 2);
+    // Noon UTC, so "a minute later" is the same UTC day whenever the suite runs.
     const now = new Date();
+    now.setUTCHours(12, 0, 0, 0);
     await ChangeRequestModel.update({ stageDueAt: new Date(now.getTime() - 3_600_000) }, { where: { id } });
     const isReminder = (m: CapturedMail) => about(ref)(m) && m.subject.startsWith('[CANNOT BE UNDONE] Overdue: ');
 
