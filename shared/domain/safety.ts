@@ -3,7 +3,7 @@ import type { SafetyFlag } from '../schemas/change-items';
 import { groupDigits } from './decimal';
 
 // Safety cautions for cut items that may create a small part, a sharp point or edge, or change a
-// wall a child could break, and the rigging caution for moving a heavy tool.
+// wall a child could break. The caution for lifting a heavy tool lives in handling.ts.
 //
 // These are cautions with reference values, not a test plan. Values come from TRADE-FACTS
 // sections 4 and 8 with the source named on each; the inch-pound value is the one the US rules
@@ -210,35 +210,4 @@ export function safetyReview(items: readonly FlaggedItem[], options: { ageGrades
     retestRequired: retestRequired(items),
     closing: cautions.length > 0 ? SAFETY_CLOSING : '',
   };
-}
-
-export interface RiggingCaution {
-  title: string;
-  /** The weight as shown, e.g. "850 kg (about 1,874 lb, estimate)", or a request to weigh it. */
-  weightText: string;
-  /** Whole pounds, null when the weight is not known. */
-  weightLb: number | null;
-  sentences: string[];
-  /** The sentences joined, for an e-mail or a notice. */
-  text: string;
-}
-
-/**
- * The caution shown before a tool is moved or lifted (TRADE-FACTS section 8). It defers to
- * qualified riggers and local codes; it is not a lifting instruction.
- */
-export function riggingCaution(weightKg: number | null | undefined): RiggingCaution {
-  const known = typeof weightKg === 'number' && Number.isFinite(weightKg) && weightKg > 0;
-  const weightLb = known ? new Decimal(weightKg).div(LB_KG).toDecimalPlaces(0).toNumber() : null;
-  const weightText = known
-    ? `${groupDigits(new Decimal(weightKg).toDecimalPlaces(0).toString())} kg (about ${groupDigits(String(weightLb))} lb); confirm by weighing or from the mold maker's data`
-    : 'Weight not recorded: weigh the tool or get the figure from the mold maker before it is lifted';
-  const sentences = [
-    known ? `This tool weighs ${weightText}.` : `${weightText}.`,
-    'Know the weight within about 10 percent before the lift, and use cranes, hoists, slings and forklifts rated for it, with the rated load marked (OSHA 29 CFR 1910.179, 1910.184, 1910.178 in the US).',
-    'Lift the mold closed, with a strap or latch across the parting line so the halves cannot separate, from the eyebolt holes the mold maker provided (common practice, no published source); only shoulder eyebolts may take an angled pull, and then at reduced capacity (ASME B30.26).',
-    'Keep people out from under the load and move it slowly, without sudden starts or stops.',
-    'Lifting and moving molds is governed by local law and site procedures: the lift must be planned and made by qualified riggers and trained operators under the local codes, following the mold maker\'s lifting instructions.',
-  ];
-  return { title: 'Heavy load: rigging caution', weightText, weightLb, sentences, text: sentences.join(' ') };
 }

@@ -2,13 +2,13 @@ import {
   abuseTests,
   formatReference,
   retestRequired,
-  riggingCaution,
   safetyReview,
   SAFETY_CLOSING,
   sharpPointTest,
   smallPartsCylinder,
   type ReferenceValue,
 } from '../../shared/domain/safety';
+import { riggingCaution } from '../../shared/domain/handling';
 
 const byId = (refs: readonly ReferenceValue[], id: string) => {
   const r = refs.find((x) => x.id === id);

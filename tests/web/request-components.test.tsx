@@ -5,7 +5,7 @@ import { safetyReview } from '@shared/domain/safety';
 import { ImageCompare } from '@/features/requests/components/image-compare';
 import { ImpactPanel } from '@/features/requests/components/impact-panel';
 import { IrreversibleBanner } from '@/features/requests/components/irreversible-banner';
-import { CannotUndoPill, RequestStatusPill } from '@/features/requests/components/request-status';
+import { CannotUndoPill, RequestStatusPill } from '@/components/requests/request-status';
 import { SafetyCautions } from '@/features/requests/components/safety-cautions';
 
 const tool = { id: 't1', code: 'KB-T-0412', currentRevision: 1 };

@@ -9,7 +9,7 @@ import { requestKeys } from '@/api/requests';
 import { currentOf, isMovedOn, newIdempotencyKey, takeRequestAction } from '@/api/workflow';
 import { ApiError } from '@/api/errors';
 import { ActionForm } from '@/features/workflow/components/action-form';
-import { dueWords, formatInZone, formatUtc, todayIn, usableZone } from '@/features/workflow/format';
+import { dueWords, formatInZone, formatUtc, todayIn, usableZone } from '@/lib/requests/workflow-format';
 
 // ---------------------------------------------------------------------------------------------
 // Times in the viewer's zone. The offsets are those of the IANA time zone database (tzdata):

@@ -7,7 +7,6 @@ import { productKeys, toolKeys, toolQueries } from '@/api/registry';
 import { requestKeys } from '@/api/requests';
 import { currentOf, isMovedOn, newIdempotencyKey, takeRequestAction, workflowKeys, workflowQueries } from '@/api/workflow';
 
-export const useInbox = () => useQuery(workflowQueries.inbox());
 export const useSignOffs = (requestId: string, enabled = true) => useQuery({ ...workflowQueries.signOffs(requestId), enabled });
 /** The chain check runs only when asked for (the "Check record" button). */
 export const useVerify = (requestId: string, asked: boolean) => useQuery({ ...workflowQueries.verify(requestId), enabled: asked });

@@ -3,9 +3,9 @@ import { Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
 import type { InboxItem } from '@shared/schemas/inbox';
 import { AppText } from '@/components/ui/app-text';
 import { Icon } from '@/components/ui/icon';
-import { CannotUndoPill, RequestStatusPill } from '@/features/requests/components/request-status';
-import { formatInZone, dueWords } from '@/features/workflow/format';
-import { actionLabel } from '@/features/workflow/look';
+import { CannotUndoPill, RequestStatusPill } from '@/components/requests/request-status';
+import { formatInZone, dueWords } from '@/lib/requests/workflow-format';
+import { actionLabel } from '@/lib/requests/workflow-look';
 import { colors, fonts, space, touch } from '@/theme';
 
 /** Where one tap takes you: straight to the sign-off screen for a brand lead's approval, else the request. */

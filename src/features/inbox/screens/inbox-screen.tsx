@@ -1,5 +1,7 @@
 import { StyleSheet, View } from 'react-native';
+import { useQuery } from '@tanstack/react-query';
 import type { Role } from '@shared/schemas/users';
+import { workflowQueries } from '@/api/workflow';
 import { AppText } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
@@ -8,8 +10,7 @@ import { ErrorState } from '@/components/ui/error-state';
 import { Icon } from '@/components/ui/icon';
 import { Loading } from '@/components/ui/loading';
 import { Screen } from '@/components/ui/screen';
-import { usableZone } from '@/features/workflow/format';
-import { useInbox } from '@/features/workflow/hooks';
+import { usableZone } from '@/lib/requests/workflow-format';
 import { useSession } from '@/lib/session';
 import { colors, space } from '@/theme';
 import { InboxRow } from '../components/inbox-row';
@@ -27,7 +28,7 @@ export function InboxScreen() {
   const session = useSession();
   const me = session.data;
   const zone = usableZone(me?.timeZone);
-  const q = useInbox();
+  const q = useQuery(workflowQueries.inbox());
   const meta = q.data?.meta;
   const subtitle = !meta
     ? 'What waits for your signature'

@@ -8,7 +8,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Banner } from '@/components/ui/banner';
 import { Icon } from '@/components/ui/icon';
 import { colors, radii, space } from '@/theme';
-import { formatUnits } from '../format';
+import { formatUnits } from '@/lib/requests/format';
 import { IrreversibleBanner } from './irreversible-banner';
 
 export interface ImpactPanelProps {

@@ -8,7 +8,7 @@ import { Banner } from '@/components/ui/banner';
 import { Button } from '@/components/ui/button';
 import { Icon } from '@/components/ui/icon';
 import { colors, fonts, radii, space } from '@/theme';
-import { formatBytes } from '../format';
+import { formatBytes } from '@/lib/requests/format';
 import { useDeleteAttachment } from '../hooks';
 import { pickImages } from '../pick-images';
 import { NEW_REQUEST, uploadQueue, type QueuedUpload } from '../upload-queue';

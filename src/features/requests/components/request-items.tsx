@@ -6,7 +6,7 @@ import { AppText } from '@/components/ui/app-text';
 import { Card } from '@/components/ui/card';
 import { StatusPill } from '@/components/ui/status-pill';
 import { space } from '@/theme';
-import { formatSize } from '../format';
+import { formatSize } from '@/lib/requests/format';
 import { SteelLine } from './impact-panel';
 
 /** The cut items of a request: what happens to the part, how, the steel action and undo path, and why. */

@@ -4,8 +4,8 @@ import type { RequestSummary } from '@shared/schemas/change-requests';
 import { AppText } from '@/components/ui/app-text';
 import { Icon } from '@/components/ui/icon';
 import { colors, fonts, space, touch } from '@/theme';
-import { formatDay } from '../format';
-import { CannotUndoPill, RequestStatusPill } from './request-status';
+import { formatDay } from '@/lib/requests/format';
+import { CannotUndoPill, RequestStatusPill } from '@/components/requests/request-status';
 
 /** One request in the list: ref and tool code (mono), title, state in words, and the cannot-be-undone marker. */
 export function RequestRow({ r, divider }: { r: RequestSummary; divider: boolean }) {

@@ -3,7 +3,7 @@ import { AppText, type TextTone } from '@/components/ui/app-text';
 import { Button } from '@/components/ui/button';
 import { Icon, type IconName } from '@/components/ui/icon';
 import { colors, space } from '@/theme';
-import { formatClock } from '../format';
+import { formatClock } from '@/lib/requests/format';
 import type { SaveState } from '../use-request-draft';
 
 const look = (s: SaveState, isNew: boolean): { icon: IconName; text: string; tone: TextTone } => {

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { Image, Pressable, StyleSheet, View } from 'react-native';
 import type { Attachment, AttachmentKind, RequestDetail } from '@shared/schemas/change-requests';
 import { attachmentSrc } from '@/api/requests';
@@ -14,23 +14,29 @@ import { Section } from '@/components/ui/section';
 import { isApiError } from '@/api/errors';
 import { colors, radii, space } from '@/theme';
 import { useWide } from '@/theme/use-wide';
-import { formatDay } from '../format';
+import { formatDay } from '@/lib/requests/format';
 import { useRequest } from '../hooks';
 import { compareImageOf, mainAttachment, marksOf } from '../images';
 import { ImageCompare } from '../components/image-compare';
 import { ImpactPanel } from '../components/impact-panel';
 import { IrreversibleBanner } from '../components/irreversible-banner';
-import { RequestActionsSlot } from '../components/request-actions-slot';
 import { RequestImages } from '../components/request-images';
 import { RequestItems } from '../components/request-items';
-import { CannotUndoPill, RequestStatusPill } from '../components/request-status';
+import { CannotUndoPill, RequestStatusPill } from '@/components/requests/request-status';
 import { SafetyCautions } from '../components/safety-cautions';
-import { stateLook } from '../status';
-import { RequestNumbersSection } from '@/features/numbers/components/request-numbers-section';
+import { stateLook } from '@/lib/requests/status';
 
 const back = { href: '/requests' as const, label: 'Requests' };
 
-export function RequestDetailScreen({ requestId }: { requestId: string }) {
+export interface RequestDetailScreenProps {
+  requestId: string;
+  /** The sign-off workflow (who it waits for, the caller's actions, the timeline), right under the summary. */
+  renderActions?: (r: RequestDetail) => ReactNode;
+  /** The numbers behind the change, after the cut items and what the change ends. */
+  renderNumbers?: (r: RequestDetail) => ReactNode;
+}
+
+export function RequestDetailScreen({ requestId, renderActions, renderNumbers }: RequestDetailScreenProps) {
   const r = useRequest(requestId);
   if (r.isPending) return <Loading fill label="Loading the request…" />;
   if (r.isError) {
@@ -50,10 +56,10 @@ export function RequestDetailScreen({ requestId }: { requestId: string }) {
       </Screen>
     );
   }
-  return <Detail r={r.data} />;
+  return <Detail r={r.data} workflow={renderActions?.(r.data)} numbers={renderNumbers?.(r.data)} />;
 }
 
-function Detail({ r }: { r: RequestDetail }) {
+function Detail({ r, workflow, numbers }: { r: RequestDetail; workflow: ReactNode; numbers: ReactNode }) {
   const wide = useWide();
   const canEdit = r.permissions.canEdit || r.permissions.canEditItems;
   const look = stateLook(r.status);
@@ -125,7 +131,7 @@ function Detail({ r }: { r: RequestDetail }) {
         </Section>
       ) : null}
 
-      <RequestActionsSlot request={r} />
+      {workflow}
 
       <Section title="Images" description="Before and after, with the places the cut items mark.">
         <Compare r={r} />
@@ -153,7 +159,7 @@ function Detail({ r }: { r: RequestDetail }) {
         </View>
       </View>
 
-      <RequestNumbersSection requestId={r.id} version={r.version} />
+      {numbers}
 
       <SafetyCautions review={r.safety} retestNote={r.retestNote} testID="request-safety" />
     </Screen>

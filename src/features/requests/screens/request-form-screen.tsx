@@ -18,7 +18,7 @@ import { TextField } from '@/components/ui/text-field';
 import { useSession } from '@/lib/session';
 import { colors, space } from '@/theme';
 import { useWide } from '@/theme/use-wide';
-import { formatClock, formatUnits } from '../format';
+import { formatClock, formatUnits } from '@/lib/requests/format';
 import {
   emptyItem,
   liveImpact,

@@ -19,7 +19,7 @@ import { colors, radii, space, touch } from '@/theme';
 import { useWide } from '@/theme/use-wide';
 import { RequestRow } from '../components/request-row';
 import { useDebounced, useRequestList } from '../hooks';
-import { stateLook } from '../status';
+import { stateLook } from '@/lib/requests/status';
 
 type StateFilter = RequestState | 'any';
 type Toggle = 'mine' | 'irreversible';

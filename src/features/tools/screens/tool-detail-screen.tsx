@@ -23,12 +23,17 @@ import { PartsCard } from '../components/parts-card';
 import { RetentionCard } from '../components/retention-card';
 import { RevisionTimeline } from '../components/revision-timeline';
 import { useCanEditRegistry, useTool } from '../hooks';
-import { OpenPlansCard } from '@/features/numbers/components/open-plans-card';
 import { takeToolSaved } from '../saved-flash';
 
 const back = { href: '/tools' as const, label: 'Tools' };
 
-export function ToolDetailScreen({ toolId }: { toolId: string }) {
+export interface ToolDetailScreenProps {
+  toolId: string;
+  /** The open plans of the tool's products against its life (composed by the route), under the life card. */
+  openPlans?: ReactNode;
+}
+
+export function ToolDetailScreen({ toolId, openPlans }: ToolDetailScreenProps) {
   const tool = useTool(toolId);
   if (tool.isPending) return <Loading fill label="Loading tool…" />;
   if (tool.isError) {
@@ -38,10 +43,10 @@ export function ToolDetailScreen({ toolId }: { toolId: string }) {
       </Screen>
     );
   }
-  return <ToolDetailView tool={tool.data} onReload={() => void tool.refetch()} />;
+  return <ToolDetailView tool={tool.data} openPlans={openPlans} onReload={() => void tool.refetch()} />;
 }
 
-function ToolDetailView({ tool, onReload }: { tool: ToolDetail; onReload: () => void }) {
+function ToolDetailView({ tool, openPlans, onReload }: { tool: ToolDetail; openPlans: ReactNode; onReload: () => void }) {
   const wide = useWide();
   const canEdit = useCanEditRegistry();
   const [saved, setSaved] = useState(false);
@@ -55,7 +60,7 @@ function ToolDetailView({ tool, onReload }: { tool: ToolDetail; onReload: () => 
   const life = (
     <>
       <LifeCard tool={tool} />
-      <OpenPlansCard toolId={tool.id} />
+      {openPlans}
     </>
   );
   const retention = <RetentionCard tool={tool} canEdit={canEdit} onReload={onReload} />;

@@ -14,12 +14,12 @@ import { ChoiceGroup } from '@/components/ui/choice-group';
 import { TextField } from '@/components/ui/text-field';
 import { useSession } from '@/lib/session';
 import { space } from '@/theme';
-import { todayIn, usableZone } from '../format';
+import { todayIn, usableZone } from '@/lib/requests/workflow-format';
 import { factsOf, meaningFor, needsOf } from '../facts';
 import { useIntentKey, useTakeAction, useToolCurrency } from '../hooks';
-import { actionIcon, actionLabel, actionVariant } from '../look';
+import { actionIcon, actionLabel, actionVariant } from '@/lib/requests/workflow-look';
 import { MeaningBox } from './meaning-box';
-import { RecordCutFields, type CutValues } from './record-cut-fields';
+import { RecordCutFields, type CutValues, type RenderImages } from './record-cut-fields';
 
 export type FieldErrors = Record<string, string>;
 
@@ -54,6 +54,8 @@ export interface ActionFormProps {
   /** The request moved on (someone acted first); the cache already holds the fresh copy. */
   onMovedOn: (current: RequestDetail | null, message: string) => void;
   onCancel: () => void;
+  /** Shows the request's images (the first-sample photos of a recorded cut). */
+  renderImages?: RenderImages;
   testID?: string;
 }
 
@@ -62,7 +64,7 @@ export interface ActionFormProps {
  * the fields the action needs (a reason, the re-test note, the cut report), and the button. The
  * rules of what is missing are the shared lifecycle's (the server applies the same ones).
  */
-export function ActionForm({ request: r, action, onDone, onMovedOn, onCancel, testID = `action-${action}` }: ActionFormProps) {
+export function ActionForm({ request: r, action, onDone, onMovedOn, onCancel, renderImages, testID = `action-${action}` }: ActionFormProps) {
   const me = useSession().data;
   const zone = usableZone(me?.timeZone);
   const need = needsOf(r, action);
@@ -139,7 +141,7 @@ export function ActionForm({ request: r, action, onDone, onMovedOn, onCancel, te
           testID={`${testID}-target`}
         />
       ) : null}
-      {need.cutReport ? <RecordCutFields r={r} values={cut} onChange={setCut} errors={errors} currency={currency} testID={`${testID}-cut`} /> : null}
+      {need.cutReport ? <RecordCutFields r={r} values={cut} onChange={setCut} errors={errors} currency={currency} renderImages={renderImages} testID={`${testID}-cut`} /> : null}
       {need.retestNote ? (
         <TextField
           label="Re-test note"

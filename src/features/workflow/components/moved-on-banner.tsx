@@ -1,8 +1,8 @@
 import type { RequestDetail } from '@shared/schemas/change-requests';
 import { AppText } from '@/components/ui/app-text';
 import { Banner } from '@/components/ui/banner';
-import { stateLook } from '@/features/requests/status';
-import { decisionLook } from '../look';
+import { stateLook } from '@/lib/requests/status';
+import { decisionLook } from '@/lib/requests/workflow-look';
 
 /**
  * Shown when the server refused because the request moved on (409): someone acted first. The

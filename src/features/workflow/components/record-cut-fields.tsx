@@ -1,10 +1,20 @@
+import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
-import type { RequestDetail } from '@shared/schemas/change-requests';
+import type { Attachment, AttachmentKind, RequestDetail } from '@shared/schemas/change-requests';
 import { AppText } from '@/components/ui/app-text';
 import { TextField } from '@/components/ui/text-field';
-import { RequestImages } from '@/features/requests/components/request-images';
 import { useWide } from '@/theme/use-wide';
 import { space } from '@/theme';
+
+/** What the host passes to show and add a request's images of one kind (the request images view). */
+export interface ImagesSlotProps {
+  requestKey: string;
+  attachments: readonly Attachment[];
+  uploadKinds: readonly AttachmentKind[];
+  kinds: readonly AttachmentKind[];
+  testID: string;
+}
+export type RenderImages = (p: ImagesSlotProps) => ReactNode;
 
 export interface CutValues {
   /** As typed: "1,250.00" in the tool's currency. */
@@ -24,6 +34,7 @@ export function RecordCutFields({
   onChange,
   errors,
   currency,
+  renderImages,
   testID,
 }: {
   r: RequestDetail;
@@ -31,6 +42,8 @@ export function RecordCutFields({
   onChange: (v: CutValues) => void;
   errors: Record<string, string>;
   currency: string;
+  /** Shows the first-sample photos with picking and upload (composed by the route). */
+  renderImages?: RenderImages;
   testID: string;
 }) {
   const wide = useWide();
@@ -74,9 +87,9 @@ export function RecordCutFields({
         multiline
         testID={`${testID}-note`}
       />
-      {canAdd || samples.length ? (
-        <RequestImages requestKey={r.id} attachments={samples} uploadKinds={canAdd ? ['sample'] : []} kinds={['sample']} testID={`${testID}-samples`} />
-      ) : null}
+      {renderImages && (canAdd || samples.length)
+        ? renderImages({ requestKey: r.id, attachments: samples, uploadKinds: canAdd ? ['sample'] : [], kinds: ['sample'], testID: `${testID}-samples` })
+        : null}
       {canAdd && samples.length === 0 ? (
         <AppText variant="small" tone="soft">
           Add photos of the first samples from the changed tool: the designer and the tooling engineer check them next.

@@ -12,12 +12,12 @@ import { Icon } from '@/components/ui/icon';
 import { Loading } from '@/components/ui/loading';
 import { Section } from '@/components/ui/section';
 import { StatusPill } from '@/components/ui/status-pill';
-import { formatDay } from '@/features/requests/format';
+import { formatDay } from '@/lib/requests/format';
 import { useSession } from '@/lib/session';
 import { colors, space, tones } from '@/theme';
-import { usableZone } from '../format';
+import { usableZone } from '@/lib/requests/workflow-format';
 import { useSignOffs, useToolCurrency, useVerify } from '../hooks';
-import { decisionLook } from '../look';
+import { decisionLook } from '@/lib/requests/workflow-look';
 import { SignedTime } from './signed-time';
 
 const targetWords: Record<string, string> = { draft: 'the designer', engineering_review: 'the tooling engineer' };

@@ -3,7 +3,7 @@ import { Platform, Pressable, StyleSheet, View } from 'react-native';
 import { AppText } from '@/components/ui/app-text';
 import { Icon } from '@/components/ui/icon';
 import { colors, radii, space, touch } from '@/theme';
-import { formatInZone, formatUtc } from '../format';
+import { formatInZone, formatUtc } from '@/lib/requests/workflow-format';
 
 /**
  * A signing time in the viewer's zone. The UTC time the record keeps shows on hover (web title)

@@ -11,9 +11,10 @@ import { Icon } from '@/components/ui/icon';
 import { Section } from '@/components/ui/section';
 import { useSession } from '@/lib/session';
 import { colors, space } from '@/theme';
-import { andList, dueWords, usableZone } from '../format';
-import { actionIcon, actionLabel, actionVariant, doneWords } from '../look';
+import { andList, dueWords, usableZone } from '@/lib/requests/workflow-format';
+import { actionIcon, actionLabel, actionVariant, doneWords } from '@/lib/requests/workflow-look';
 import { ActionForm } from './action-form';
+import type { RenderImages } from './record-cut-fields';
 import { MovedOnBanner } from './moved-on-banner';
 import { SignOffTimeline } from './sign-off-timeline';
 
@@ -24,7 +25,7 @@ const ON_SIGN_SCREEN: readonly RequestAction[] = ['approve', 'return', 'decline'
  * On the request detail: who the request waits for and by when, the actions the caller may take
  * now (each opening its form with the meaning of the signature), then the sign-off timeline.
  */
-export function WorkflowPanel({ request: r }: { request: RequestDetail }) {
+export function WorkflowPanel({ request: r, renderImages }: { request: RequestDetail; renderImages: RenderImages }) {
   const [open, setOpen] = useState<RequestAction | null>(null);
   const [done, setDone] = useState<{ action: RequestAction; signOff: SignOff } | null>(null);
   const [movedOn, setMovedOn] = useState<{ current: RequestDetail | null; message: string } | null>(null);
@@ -66,6 +67,7 @@ export function WorkflowPanel({ request: r }: { request: RequestDetail }) {
                 setMovedOn({ current, message });
               }}
               onCancel={() => setOpen(null)}
+              renderImages={renderImages}
             />
           ) : actions.length ? (
             <View style={styles.buttons} testID="workflow-actions">

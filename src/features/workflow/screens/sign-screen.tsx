@@ -1,10 +1,12 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
+import { useQuery } from '@tanstack/react-query';
 import { Pressable, StyleSheet, View } from 'react-native';
 import type { RequestAction, RequestState } from '@shared/domain/lifecycle';
 import type { RequestDetail } from '@shared/schemas/change-requests';
 import type { TakeActionInput, TakeActionResponse } from '@shared/schemas/request-actions';
 import { roleLabels } from '@shared/schemas/users';
 import { isApiError } from '@/api/errors';
+import { requestQueries } from '@/api/requests';
 import { AppText } from '@/components/ui/app-text';
 import { Banner } from '@/components/ui/banner';
 import { Button } from '@/components/ui/button';
@@ -19,18 +21,15 @@ import { Loading } from '@/components/ui/loading';
 import { Screen } from '@/components/ui/screen';
 import { Section } from '@/components/ui/section';
 import { TextField } from '@/components/ui/text-field';
-import { NumbersCard } from '@/features/numbers/components/numbers-card';
-import { useRequestNumbers } from '@/features/numbers/hooks';
-import { CannotUndoPill, RequestStatusPill } from '@/features/requests/components/request-status';
-import { useRequest } from '@/features/requests/hooks';
-import { stateLook } from '@/features/requests/status';
+import { CannotUndoPill, RequestStatusPill } from '@/components/requests/request-status';
+import { stateLook } from '@/lib/requests/status';
 import { useSession } from '@/lib/session';
 import { colors, fonts, radii, space, touch } from '@/theme';
 import { useWide } from '@/theme/use-wide';
-import { andList, dueWords, usableZone } from '../format';
+import { andList, dueWords, usableZone } from '@/lib/requests/workflow-format';
 import { meaningFor } from '../facts';
 import { useIntentKey, useTakeAction } from '../hooks';
-import { doneWords } from '../look';
+import { doneWords } from '@/lib/requests/workflow-look';
 import { refusalOf, type FieldErrors } from '../components/action-form';
 import { MeaningBox } from '../components/meaning-box';
 import { MovedOnBanner } from '../components/moved-on-banner';
@@ -43,8 +42,8 @@ type Decision = Extract<RequestAction, 'approve' | 'return' | 'decline'>;
  * the meaning of the signature in words; Approve stays off until all of it is there. For a change
  * that can be undone, a plain confirm. Decline and Send back need a reason.
  */
-export function SignScreen({ requestId }: { requestId: string }) {
-  const q = useRequest(requestId);
+export function SignScreen({ requestId, numbers }: { requestId: string; numbers: ReactNode }) {
+  const q = useQuery({ ...requestQueries.detail(requestId), enabled: !!requestId });
   const wide = useWide();
   const back = { href: { pathname: '/requests/[id]', params: { id: requestId } } as const, label: 'Request' };
   const [done, setDone] = useState<{ action: Decision; res: TakeActionResponse } | null>(null);
@@ -109,6 +108,7 @@ export function SignScreen({ requestId }: { requestId: string }) {
         key={r.version}
         r={r}
         mine={mine}
+        numbers={numbers}
         onDone={(action, res) => {
           setMovedOn(null);
           setDone({ action, res });
@@ -179,11 +179,14 @@ function Summary({ r }: { r: RequestDetail }) {
 function SignForm({
   r,
   mine,
+  numbers,
   onDone,
   onMovedOn,
 }: {
   r: RequestDetail;
   mine: readonly Decision[];
+  /** The numbers behind the change, beside the form (composed by the route). */
+  numbers: ReactNode;
   onDone: (action: Decision, res: TakeActionResponse) => void;
   onMovedOn: (current: RequestDetail | null, message: string) => void;
 }) {
@@ -281,7 +284,7 @@ function SignForm({
     <View style={wide ? styles.columns : styles.form}>
       <View style={wide ? styles.left : styles.form}>
         <Summary r={r} />
-        <SignNumbers requestId={r.id} />
+        {numbers}
       </View>
       <View style={wide ? styles.right : styles.form}>
         {mine.includes('approve') ? (
@@ -460,17 +463,6 @@ function SignForm({
         ) : null}
       </View>
     </View>
-  );
-}
-
-/** The numbers behind the change (cost, per unit, payback, tool life), in the phone layout beside the form. */
-function SignNumbers({ requestId }: { requestId: string }) {
-  const q = useRequestNumbers(requestId);
-  if (q.isError) return isApiError(q.error) && q.error.status === 403 ? null : <ErrorState error={q.error} onRetry={() => void q.refetch()} testID="sign-numbers-error" />;
-  return (
-    <Section title="The numbers" description="What the cut costs, what each unit carries, when it pays back and whether the tool lasts." testID="sign-numbers">
-      {q.isPending ? <Loading label="Loading the numbers…" /> : <NumbersCard result={q.data.result} facts={q.data.facts} compact testID="numbers-card" />}
-    </Section>
   );
 }
 

@@ -4,7 +4,7 @@ import { lifecycle, type RequestAction, type SignOffDecision } from '@shared/dom
 import type { ButtonVariant } from '@/components/ui/button';
 import type { IconName } from '@/components/ui/icon';
 import type { Tone } from '@/theme';
-import { lifecycleIcon } from '@/features/requests/status';
+import { lifecycleIcon } from './status';
 
 export const actionLabel = (a: RequestAction) => lifecycle.actions[a].label;
 export const actionIcon = (a: RequestAction): IconName => lifecycleIcon(lifecycle.actions[a].icon);

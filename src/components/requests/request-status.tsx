@@ -1,6 +1,6 @@
 import type { RequestState } from '@shared/domain/lifecycle';
 import { StatusPill } from '@/components/ui/status-pill';
-import { stateLook } from '../status';
+import { stateLook } from '@/lib/requests/status';
 
 /** The request's state as a word with an icon (never colour alone). */
 export function RequestStatusPill({ status, testID }: { status: RequestState; testID?: string }) {
