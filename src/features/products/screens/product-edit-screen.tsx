@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useMemo, useState } from 'react';
 import { router } from 'expo-router';
 import { Formik, type FormikHelpers } from 'formik';
 import { StyleSheet, View } from 'react-native';
@@ -17,6 +17,7 @@ import { space } from '@/theme';
 import { useWide } from '@/theme/use-wide';
 import { productFormFrom, productFormSchema, productServerFieldMap, toUpdateProductPayload, type ProductFormValues } from '../forms';
 import { useBrands, useCanEditRegistry, useProduct, useUpdateProduct } from '../hooks';
+import { useEditSnapshot } from '@/lib/use-edit-snapshot';
 
 const formFields = ['sku', 'name', 'brandId', 'status', 'fob', 'wholesale', 'retail', 'currency', 'plannedUnits'];
 
@@ -32,12 +33,7 @@ function applyProductErrors(e: unknown, helpers: FormikHelpers<ProductFormValues
 export function ProductEditScreen({ productId }: { productId: string }) {
   const canEdit = useCanEditRegistry();
   const product = useProduct(productId);
-  // Edits the version loaded when the form opened; only "Reload" after a conflict replaces it.
-  const [snapshot, setSnapshot] = useState<Product | null>(null);
-  const [reloading, setReloading] = useState(false);
-  useEffect(() => {
-    if (!snapshot && product.data) setSnapshot(product.data);
-  }, [snapshot, product.data]);
+  const { snapshot, reloading, reload } = useEditSnapshot(product);
   const back = { href: '/products' as const, label: 'Products' };
   if (!canEdit) {
     return (
@@ -54,12 +50,6 @@ export function ProductEditScreen({ productId }: { productId: string }) {
     );
   }
   if (!snapshot) return <Loading fill label="Loading product…" />;
-  const reload = async () => {
-    setReloading(true);
-    const fresh = await product.refetch();
-    setReloading(false);
-    if (fresh.data) setSnapshot(fresh.data);
-  };
   return <ProductEditForm key={snapshot.version} product={snapshot} onReload={() => void reload()} reloading={reloading} />;
 }
 

@@ -3,15 +3,12 @@ import { StyleSheet, View } from 'react-native';
 import { productStatusLabels, productStatuses, type ProductStatus } from '@shared/schemas/registry';
 import type { ProductFilters } from '@/api/registry';
 import { FilterBar } from '@/components/registry/filter-bar';
-import { AppText } from '@/components/ui/app-text';
-import { Banner } from '@/components/ui/banner';
-import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
+import { PagedResults } from '@/components/registry/paged-results';
 import { ErrorState } from '@/components/ui/error-state';
 import { Loading } from '@/components/ui/loading';
 import { Screen } from '@/components/ui/screen';
 import { TextField } from '@/components/ui/text-field';
-import { plural } from '@/lib/registry-format';
 import { useDebounced } from '@/lib/use-debounced';
 import { space } from '@/theme';
 import { useWide } from '@/theme/use-wide';
@@ -89,27 +86,9 @@ export function ProductListScreen() {
           />
         )
       ) : (
-        <>
-          <AppText variant="small" testID="products-count" aria-live="polite">
-            {list.hasNextPage ? `Showing the first ${plural(products.length, 'product')}` : plural(products.length, 'product')}
-            {list.isFetching && !list.isFetchingNextPage ? ' · updating…' : ''}
-          </AppText>
+        <PagedResults list={list} count={products.length} noun="product" testID="products">
           {wide ? <ProductTable products={products} /> : <ProductRows products={products} />}
-          {list.hasNextPage ? (
-            <View style={styles.more}>
-              <Button
-                title="Load more products"
-                icon="chevron-down"
-                variant="secondary"
-                busy={list.isFetchingNextPage}
-                busyTitle="Loading…"
-                onPress={() => void list.fetchNextPage()}
-                testID="products-more"
-              />
-            </View>
-          ) : null}
-          {list.isFetchNextPageError ? <Banner kind="due" title="The next products did not load" message="Try “Load more products” again." /> : null}
-        </>
+        </PagedResults>
       )}
     </Screen>
   );
@@ -117,5 +96,4 @@ export function ProductListScreen() {
 
 const styles = StyleSheet.create({
   controls: { gap: space.xs },
-  more: { alignItems: 'center' },
 });

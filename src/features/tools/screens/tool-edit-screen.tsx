@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useMemo, useState } from 'react';
 import { router } from 'expo-router';
 import { Formik, type FormikHelpers } from 'formik';
 import { StyleSheet, View } from 'react-native';
@@ -24,6 +24,7 @@ import {
 } from '../forms';
 import { useCanEditRegistry, useCreateTool, useTool, useUpdateTool } from '../hooks';
 import { markToolSaved } from '../saved-flash';
+import { useEditSnapshot } from '@/lib/use-edit-snapshot';
 
 const formFields = Object.keys(emptyToolForm);
 
@@ -47,13 +48,7 @@ function NotForYou({ title }: { title: string }) {
 export function ToolEditScreen({ toolId }: { toolId: string }) {
   const canEdit = useCanEditRegistry();
   const tool = useTool(toolId);
-  // The form edits the version loaded when it opened; a background refetch never replaces what
-  // someone is typing. Only "Reload the tool" (after a conflict) starts it afresh.
-  const [snapshot, setSnapshot] = useState<Tool | null>(null);
-  const [reloading, setReloading] = useState(false);
-  useEffect(() => {
-    if (!snapshot && tool.data) setSnapshot(tool.data);
-  }, [snapshot, tool.data]);
+  const { snapshot, reloading, reload } = useEditSnapshot(tool);
   if (!canEdit) return <NotForYou title="Edit tool" />;
   if (tool.isError && !snapshot) {
     return (
@@ -63,12 +58,6 @@ export function ToolEditScreen({ toolId }: { toolId: string }) {
     );
   }
   if (!snapshot) return <Loading fill label="Loading tool…" />;
-  const reload = async () => {
-    setReloading(true);
-    const fresh = await tool.refetch();
-    setReloading(false);
-    if (fresh.data) setSnapshot(fresh.data);
-  };
   return <ToolEditForm key={snapshot.version} tool={snapshot} onReload={() => void reload()} reloading={reloading} />;
 }
 

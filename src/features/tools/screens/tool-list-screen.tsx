@@ -3,10 +3,10 @@ import { StyleSheet, View } from 'react-native';
 import { lifeBandLabels, lifeBands, toolStatusLabels, toolStatuses, type LifeBandValue, type ToolStatus } from '@shared/schemas/registry';
 import { toolsExportUrl, type ToolFilters } from '@/api/registry';
 import { FilterBar, type SelectFilter } from '@/components/registry/filter-bar';
-import { AppText } from '@/components/ui/app-text';
 import { Banner } from '@/components/ui/banner';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
+import { PagedResults } from '@/components/registry/paged-results';
 import { ErrorState } from '@/components/ui/error-state';
 import { Loading } from '@/components/ui/loading';
 import { Screen } from '@/components/ui/screen';
@@ -158,27 +158,9 @@ export function ToolListScreen() {
           />
         )
       ) : (
-        <>
-          <AppText variant="small" testID="tools-count" aria-live="polite">
-            {list.hasNextPage ? `Showing the first ${plural(tools.length, 'tool')}` : plural(tools.length, 'tool')}
-            {list.isFetching && !list.isFetchingNextPage ? ' · updating…' : ''}
-          </AppText>
+        <PagedResults list={list} count={tools.length} noun="tool" testID="tools">
           {wide ? <ToolTable tools={tools} /> : <ToolRows tools={tools} />}
-          {list.hasNextPage ? (
-            <View style={styles.more}>
-              <Button
-                title="Load more tools"
-                icon="chevron-down"
-                variant="secondary"
-                busy={list.isFetchingNextPage}
-                busyTitle="Loading…"
-                onPress={() => void list.fetchNextPage()}
-                testID="tools-more"
-              />
-            </View>
-          ) : null}
-          {list.isFetchNextPageError ? <Banner kind="due" title="The next tools did not load" message="Try “Load more tools” again." /> : null}
-        </>
+        </PagedResults>
       )}
     </Screen>
   );
@@ -186,5 +168,4 @@ export function ToolListScreen() {
 
 const styles = StyleSheet.create({
   controls: { gap: space.xs },
-  more: { alignItems: 'center' },
 });
