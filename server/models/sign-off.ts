@@ -34,6 +34,8 @@ export class SignOffModel extends Model<InferAttributes<SignOffModel>, InferCrea
   declare prevHash: string;
   declare hash: string;
   declare idempotencyKey: string | null;
+  /** SHA-256 of the body the Idempotency-Key answered (password left out); null without a key. */
+  declare idempotencyFingerprint: CreationOptional<string | null>;
   /** The request's signed content, as hashed into contentHash (canonical JSON of this value). */
   declare content: Record<string, unknown>;
   /** What the signer declared with the action (target, cut report, ticked products, re-test note). */
@@ -59,6 +61,7 @@ export class SignOffModel extends Model<InferAttributes<SignOffModel>, InferCrea
         prevHash: { type: DataTypes.STRING(64), allowNull: false },
         hash: { type: DataTypes.STRING(64), allowNull: false },
         idempotencyKey: { type: DataTypes.STRING(80), allowNull: true, unique: true },
+        idempotencyFingerprint: { type: DataTypes.STRING(64), allowNull: true },
         content: { type: DataTypes.JSONB, allowNull: false },
         details: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
       },

@@ -136,6 +136,7 @@ export interface NewSignOff {
   signedAt: Date;
   details: Record<string, unknown>;
   idempotencyKey: string | null;
+  idempotencyFingerprint?: string | null;
 }
 
 /**
@@ -172,6 +173,7 @@ export async function appendSignOff(transaction: Transaction, requestId: string,
       prevHash,
       hash: chainHash(prevHash, fields, contentHash),
       idempotencyKey: s.idempotencyKey,
+      idempotencyFingerprint: s.idempotencyFingerprint ?? null,
       content: content as unknown as Record<string, unknown>,
     },
     { transaction },

@@ -27,7 +27,7 @@ import { roleLabels, type Role } from '../../shared/schemas/users';
 import { env } from '../env';
 import { enqueueEmail } from '../jobs/outbox';
 import type { Actor } from '../lib/auth';
-import { sha256Hex } from '../lib/canonical-json';
+import { canonicalJson, sha256Hex } from '../lib/canonical-json';
 import { AppError } from '../lib/errors';
 import { verifyPassword } from '../lib/passwords';
 import { requestMail, type RequestMailFacts, type RequestMailKind, type TransitionFacts } from '../mail/templates/request-transition';
@@ -77,6 +77,12 @@ const invalid = (message: string, fieldErrors: Record<string, string[]>) => new 
 
 /** Stored per signer, so two people's keys never meet. */
 export const idempotencyKeyHash = (userId: string, key: string) => sha256Hex(`${userId}\n${key}`);
+
+/** What a retry must repeat: the body of the action, without the signing password. */
+export const idempotencyFingerprint = (id: string, input: TakeActionInput) => {
+  const { password: _password, ...rest } = input;
+  return sha256Hex(canonicalJson({ requestId: id, ...rest }));
+};
 
 /** The latest calendar date anywhere (UTC+14), so a cut dated "today" in any zone is accepted. */
 const latestToday = (at: Date) => new Date(at.getTime() + 14 * 3_600_000).toISOString().slice(0, 10);
@@ -171,6 +177,14 @@ export async function applyAction(
           idempotencyKey: ['Already used for another action'],
         });
       }
+      if (done.idempotencyFingerprint && done.idempotencyFingerprint !== idempotencyFingerprint(id, input)) {
+        throw new AppError(
+          'idempotency_mismatch',
+          'This Idempotency-Key was already used with different details. Nothing was signed: send a new key for changed details.',
+          422,
+          { idempotencyKey: ['Already used with different details'] },
+        );
+      }
       const detail = await currentDetail();
       return { request: detail, signOff: toSignOffDto(done, detail.workflow!.currentContentHash), replayed: true };
     }
@@ -261,6 +275,7 @@ export async function applyAction(
       signedAt: at,
       details,
       idempotencyKey: keyHash,
+      idempotencyFingerprint: keyHash ? idempotencyFingerprint(id, input) : null,
     },
     content,
   );
