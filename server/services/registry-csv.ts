@@ -60,12 +60,20 @@ interface Planned<M> extends ParsedRow<unknown> {
   op?: WriteOp<M>;
 }
 
+// Spreadsheet formula guard. The export puts an apostrophe before a cell that a spreadsheet would run
+// as a formula (=, +, -, @, tab, carriage return), and before a cell that already starts with
+// apostrophes and then such a character; the import takes exactly one such apostrophe off again, so
+// exporting and importing a value gives back the same value.
+const FORMULA_LIKE = /^'*[=+\-@\t\r]/;
+const unguard = (v: string) => (v.startsWith("'") && FORMULA_LIKE.test(v) ? v.slice(1) : v);
+
 function parseFile(csv: string, kind: ImportKind) {
   const text = csv.replace(/^\uFEFF/, '');
   const parsed = Papa.parse<Record<string, string>>(text, {
     header: true,
     skipEmptyLines: 'greedy',
     transformHeader: (h) => h.trim().toLowerCase(),
+    transform: (v) => unguard(v),
   });
   const fileErrors: string[] = [];
   const headers = parsed.meta.fields ?? [];
@@ -527,6 +535,6 @@ export function toolsToCsv(tools: Tool[]): string {
     retention_due_on: t.retention.dueOn ?? '',
   }));
   // escapeFormulae: a cell starting with = + - @ is prefixed with ' so spreadsheets do not run it.
-  return Papa.unparse({ fields: columns, data: rows.map((r) => columns.map((c) => r[c as keyof typeof r])) }, { escapeFormulae: true, newline: '\r\n' });
+  return Papa.unparse({ fields: columns, data: rows.map((r) => columns.map((c) => r[c as keyof typeof r])) }, { escapeFormulae: FORMULA_LIKE, newline: '\r\n' });
 }
 
