@@ -39,7 +39,12 @@ const receiveFile: RequestHandler = (req, res, next) => {
       }
       return next(new AppError('validation_failed', `The upload could not be read (${err.message}).`, 400));
     }
-    next(err);
+    // A body that is not a well-formed multipart form (cut off, bad boundary, broken part headers).
+    next(
+      new AppError('validation_failed', 'The upload could not be read: send the photo again as a form with one file in the field "file".', 400, {
+        file: ['The upload could not be read'],
+      }),
+    );
   });
 };
 

@@ -66,8 +66,10 @@ export async function uploadAttachment(
 ): Promise<Attachment> {
   const { kind, itemId } = uploadKindInput.parse(fields ?? {});
   if (!file) throw new AppError('validation_failed', 'Choose a photo to upload (multipart field "file").', 400, { file: ['Choose a photo'] });
-  const filename = safeFilename(file.originalname);
-  const image: InspectedImage = await inspectImage(file.buffer, filename);
+  const given = safeFilename(file.originalname);
+  const image: InspectedImage = await inspectImage(file.buffer, given);
+  // A HEIC photo is stored as JPEG: its name says so.
+  const filename = /\.(heic|heif)$/i.test(given) ? given.replace(/\.[^.]*$/, image.extension) : given;
 
   return sequelize.transaction(async (transaction) => {
     const r = await lockedRequest(actor, requestId, transaction);
@@ -91,7 +93,7 @@ export async function uploadAttachment(
         sha256: image.sha256,
         width: image.width || null,
         height: image.height || null,
-        data: file.buffer,
+        data: image.data,
         thumbnail: image.thumbnail,
         uploadedBy: actor.id,
       },

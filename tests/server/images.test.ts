@@ -12,7 +12,7 @@ describe('inspectImage', () => {
     const data = await png();
     const r = await inspectImage(data, 'sculpt-before.png');
     expect(r.contentType).toBe('image/png');
-    expect(r.sha256).toBe(createHash('sha256').update(data).digest('hex'));
+    expect(r.sha256).toBe(createHash('sha256').update(r.data).digest('hex'));
     expect([r.width, r.height]).toEqual([64, 48]);
     expect((await sharp(r.thumbnail).metadata()).format).toBe('webp');
   });

@@ -11,7 +11,7 @@ describe('tool CSV round trip', () => {
     const factory = await makeFactory();
     const engineer = await makeUser('engineer', { brandIds: [brand.id] });
     const names = ['=SUM(A1:A3) head', '+Visor insert', '-Ridge core', '@Cap cavity', "'=Quoted already"];
-    const tools = [];
+    const tools: Awaited<ReturnType<typeof makeTool>>[] = [];
     for (const name of names) tools.push(await makeTool({ brandId: brand.id, factoryId: factory.id, name }));
     await ToolModel.update({ storageLocation: '=Rack 7' }, { where: { id: tools[0].id } });
 
