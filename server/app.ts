@@ -7,7 +7,8 @@ import { pinoHttp } from 'pino-http';
 import pino from 'pino';
 import type { Sequelize } from 'sequelize';
 import type PgBoss from 'pg-boss';
-import { env } from './env';
+import { env, trustProxyValue } from './env';
+import { crossSiteGuard } from './lib/cross-site';
 import { errorHandler, routeNotFound } from './lib/errors';
 import { apiRouter } from './routes';
 
@@ -17,6 +18,9 @@ export interface AppDeps {
   boss?: PgBoss;
   signInLimitPerEmail?: number;
   signInLimitPerIp?: number;
+  /** Seconds each try waits once an account has too many wrong passwords (default 30). */
+  signInDelaySeconds?: number;
+  signInLockAfter?: number;
   /** Serve the exported web app from this folder when it exists. */
   distDir?: string;
   logLevel?: string;
@@ -26,7 +30,7 @@ export function createApp(deps: AppDeps) {
   const app = express();
   app.locals.deps = deps;
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', trustProxyValue(env.TRUST_PROXY));
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -56,7 +60,7 @@ export function createApp(deps: AppDeps) {
   );
   app.use(cookieParser());
   if (env.DEV_WEB_ORIGIN) app.use(devCors(env.DEV_WEB_ORIGIN));
-  app.use('/api', express.json({ limit: '200kb' }), apiRouter(deps), routeNotFound);
+  app.use('/api', crossSiteGuard({ publicUrl: env.PUBLIC_URL, devWebOrigin: env.DEV_WEB_ORIGIN }), express.json({ limit: '200kb' }), apiRouter(deps), routeNotFound);
 
   if (deps.distDir && fs.existsSync(path.join(deps.distDir, 'index.html'))) serveWebApp(app, deps.distDir);
 
