@@ -2,6 +2,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../app';
 import { requireAuth } from '../lib/auth';
+import { refuseUnstorableText } from '../lib/text-guard';
 import { authRouter } from './auth';
 import { healthRouter } from './health';
 import { meRouter } from './me';
@@ -14,6 +15,8 @@ import { inboxRouter, workflowRouter } from './workflow';
 
 export function apiRouter(deps: AppDeps) {
   const r = Router();
+  // NUL and broken characters are refused before any route (or the audit) sees them.
+  r.use(refuseUnstorableText);
   r.use('/health', healthRouter(deps));
   r.use('/auth', authRouter(deps));
   // Everything below needs a signed-in, active user.

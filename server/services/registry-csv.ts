@@ -33,6 +33,7 @@ import {
 import { todayInZone } from '../../shared/domain/retention';
 import type { Actor } from '../lib/auth';
 import { AppError } from '../lib/errors';
+import { unstorableText } from '../lib/text-guard';
 import { AuditEventModel, BillOfPartsModel, BrandModel, FactoryModel, PartModel, ProductModel, ToolModel, ToolRevisionModel } from '../models';
 
 export const MAX_IMPORT_ROWS = 5000;
@@ -105,11 +106,15 @@ function validateRows<T>(rows: Record<string, string>[], rowErrors: Map<number, 
         .filter(([k]) => k !== '' && k !== '__parsed_extra')
         .map(([k, v]) => [k, typeof v === 'string' ? v.trim() : v]),
     );
+    for (const [column, v] of Object.entries(clean)) {
+      const why = typeof v === 'string' ? unstorableText(v) : null;
+      if (why) errors.push({ column, message: why });
+    }
     const result = schema.safeParse(clean);
     if (!result.success) {
       for (const issue of result.error.issues) errors.push({ column: issue.path.length ? String(issue.path[0]) : null, message: issue.message });
     }
-    return { line, key: keyOf(raw), values: result.success ? result.data : undefined, errors };
+    return { line, key: keyOf(raw), values: result.success && !errors.length ? result.data : undefined, errors };
   });
 }
 

@@ -22,7 +22,9 @@ export interface UploadedFile {
 export function safeFilename(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? '';
   // eslint-disable-next-line no-control-regex
-  const clean = base.replace(/[\u0000-\u001f\u007f"]/g, '').trim().slice(-200);
+  // Lone surrogates (half characters) become U+FFFD, which every store and JSON column takes.
+  // (after the cut to 200, which may split a pair).
+  const clean = base.replace(/[\u0000-\u001f\u007f"]/g, '').trim().slice(-200).replace(/[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g, '\uFFFD');
   return clean || 'photo';
 }
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { boundedDate } from './dates';
 import type { ImpactResult, BillOfPartsLine, ImpactPart, ImpactProduct, ImpactTool } from '../domain/impact';
 import type { SafetyReview } from '../domain/safety';
 import type { SteelDirection } from '../domain/steel-direction';
@@ -16,7 +17,7 @@ export type RequestStatus = z.infer<typeof requestStatusSchema>;
 export const requestRef = (n: number) => `CR-${String(n).padStart(4, '0')}`;
 
 /** A real calendar date (2027-02-31 is refused). */
-const isoDate = z.iso.date({ message: 'Use a date like 2027-03-31' });
+const isoDate = boundedDate('Use a date like 2027-03-31');
 
 export const newDerivativeInput = z.object({
   sku: z

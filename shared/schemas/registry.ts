@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { boundedDate } from './dates';
 import { RETENTION_WINDOW_DAYS, RETENTION_YEARS } from '../domain/retention';
 
 /**
@@ -104,7 +105,12 @@ export const ratedShotsSchema = z
   .int({ message: 'Use a whole number of shots' })
   .min(1, { message: 'Rated shots must be at least 1' })
   .max(2_000_000_000, { message: 'Rated shots must be at most 2,000,000,000' });
-export const weightKgSchema = z.number().positive({ message: 'Weight must be above 0 kg' }).max(200_000, { message: 'Weight must be at most 200,000 kg' });
+// Stored as numeric(9, 2): at most two decimals, so 0.001 kg (which would be stored as 0) is refused.
+export const weightKgSchema = z
+  .number()
+  .positive({ message: 'Weight must be above 0 kg' })
+  .max(200_000, { message: 'Weight must be at most 200,000 kg' })
+  .refine((v) => Math.abs(v * 100 - Math.round(v * 100)) < 1e-6, { message: 'Give the weight in kilograms with at most 2 decimals, like 850.5' });
 const nameSchema = (what: string, max = 160) => z.string().trim().min(1, { message: `Enter the ${what}` }).max(max, { message: `Use at most ${max} characters` });
 const optionalText = (max: number) => z.string().trim().max(max, { message: `Use at most ${max} characters` }).transform((s) => (s === '' ? null : s));
 
@@ -393,9 +399,9 @@ const toolEditable = {
   weightKg: weightKgSchema.nullable(),
   buildCostCents: centsSchema.nullable(),
   currency: currencySchema,
-  buildDate: isoDateSchema.nullable(),
+  buildDate: boundedDate().nullable(),
   shotCount: shotCountSchema,
-  lastRunDate: isoDateSchema.nullable(),
+  lastRunDate: boundedDate().nullable(),
   status: editableToolStatusSchema,
   storageLocation: optionalText(160).nullable(),
 };
@@ -469,7 +475,7 @@ export const retentionDecisionInput = z
     version: z.number({ message: 'Send the version you loaded' }).int().min(0),
     decision: retentionDecisionSchema,
     /** Required for keep_until: a date after today. */
-    keepUntil: isoDateSchema.nullable().optional(),
+    keepUntil: boundedDate().nullable().optional(),
     note: z.string().trim().min(3, { message: 'Say why (at least 3 characters)' }).max(1000),
   })
   .superRefine((v, ctx) => {
@@ -628,7 +634,7 @@ const intCell = (field: z.ZodNumber) =>
     .transform((s) => Number(s))
     .pipe(field);
 const optionalIntCell = (field: z.ZodNumber) => z.union([z.undefined(), z.literal('').transform(() => undefined), intCell(field)]).optional();
-const optionalDateCell = z.union([z.undefined(), z.literal('').transform(() => undefined), isoDateSchema]).optional();
+const optionalDateCell = z.union([z.undefined(), z.literal('').transform(() => undefined), boundedDate()]).optional();
 /** Money as typed: "45000.00"; turned into cents by the importer once the row's currency is known. */
 const moneyCell = z.union([z.undefined(), z.literal('').transform(() => undefined), z.string().trim().regex(/^(\d+|\d{1,3}(,\d{3})+)(\.\d+)?$/, { message: 'Use an amount like 45000.00 or 45,000.00 (no currency sign)' })]).optional();
 
@@ -654,7 +660,7 @@ export const toolCsvRow = z.object({
   last_run_date: optionalDateCell,
   /** active, idle or retained; in_change and disposed are accepted only where the tool already has them (re-imported exports). */
   status: z.union([z.undefined(), z.literal('').transform(() => undefined), cell.toLowerCase().pipe(toolStatusSchema)]).optional(),
-  storage_location: optionalCell,
+  storage_location: optionalCell.pipe(z.string().max(160, { message: 'Use at most 160 characters' }).optional()),
 });
 export type ToolCsvRow = z.output<typeof toolCsvRow>;
 

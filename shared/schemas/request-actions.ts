@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { boundedDate } from './dates';
 import { requestActions, requestStates } from '../domain/lifecycle';
 import { requestDetailSchema } from './change-requests';
 import { signOffSchema } from './sign-offs';
@@ -15,7 +16,7 @@ export const cutReportInput = z.object({
     .min(0, { message: 'The cost cannot be negative' })
     .max(100_000_000_00, { message: 'That cost is too large' }),
   /** The day the tool was cut (not in the future). */
-  cutOn: z.iso.date({ message: 'Use a date like 2027-03-31' }),
+  cutOn: boundedDate('Use a date like 2027-03-31'),
   note: z.string().trim().max(4000, { message: 'Keep the note under 4000 characters' }).default(''),
 });
 export type CutReportInput = z.input<typeof cutReportInput>;
