@@ -34,6 +34,7 @@ import { todayInZone } from '../../shared/domain/retention';
 import type { Actor } from '../lib/auth';
 import { AppError } from '../lib/errors';
 import { unstorableText } from '../lib/text-guard';
+import { changesHolding, holdingWords } from './tool-changes';
 import { AuditEventModel, BillOfPartsModel, BrandModel, FactoryModel, PartModel, ProductModel, ToolModel, ToolRevisionModel } from '../models';
 
 export const MAX_IMPORT_ROWS = 5000;
@@ -165,6 +166,7 @@ async function planTools(rows: ParsedRow<ToolCsvRow>[], today: string, transacti
     (codes.length ? await ToolModel.findAll({ where: { code: codes }, transaction, ...(transaction ? { lock: transaction.LOCK.UPDATE } : {}) }) : []).map((t) => [t.code, t]),
   );
   const existingIds = [...existing.values()].map((t) => t.id);
+  const holding = await changesHolding(existingIds, transaction);
   const cavitiesTaken = new Map<string, number>();
   for (const p of existingIds.length ? await PartModel.findAll({ where: { toolId: existingIds }, attributes: ['toolId', 'cavitiesPerShot'], transaction }) : []) {
     cavitiesTaken.set(p.toolId, (cavitiesTaken.get(p.toolId) ?? 0) + p.cavitiesPerShot);
@@ -196,6 +198,8 @@ async function planTools(rows: ParsedRow<ToolCsvRow>[], today: string, transacti
     if (v.cavity_count < taken) errors.push({ column: 'cavity_count', message: `The parts of this tool already take ${taken} cavities` });
     if (v.status && (v.status === 'in_change' || v.status === 'disposed') && v.status !== current?.status) {
       errors.push({ column: 'status', message: 'Set active, idle or retained: "in_change" comes from a change request and "disposed" from a retention decision' });
+    } else if (v.status && current && v.status !== current.status && holding.get(current.id)?.length) {
+      errors.push({ column: 'status', message: `Stays in_change until ${holdingWords(holding.get(current.id)!)} is closed or cancelled` });
     }
     if (errors.length) return r;
 

@@ -20,6 +20,7 @@ import type { Actor } from '../lib/auth';
 import { AppError } from '../lib/errors';
 import { BillOfPartsModel, CompanySettingModel, PartModel, ProductModel, ToolModel, ToolRevisionModel } from '../models';
 import { recordAudit } from './audit';
+import { changesHoldingTool, holdingWords } from './tool-changes';
 import { openChangesOf } from './request-numbers';
 import {
   RETENTION_SETTING_KEY,
@@ -327,6 +328,14 @@ export async function updateTool(sequelize: Sequelize, actor: Actor, id: string,
     if (buildDate && lastRunDate && lastRunDate < buildDate) {
       throw new AppError('validation_failed', 'The last run cannot be before the build date', 400, { lastRunDate: ['Before the build date'] });
     }
+    if (changes.status !== undefined && changes.status !== tool.status) {
+      const holding = await changesHoldingTool(tool.id, transaction);
+      if (holding.length) {
+        throw new AppError('wrong_state', `Tool ${tool.code} stays "being changed" until ${holdingWords(holding)} is closed or cancelled. Finish or cancel that change first.`, 409, {
+          status: ['Stays "being changed" while a change cleared to cut is open'],
+        });
+      }
+    }
     tool.set(changes as Partial<ToolModel>);
     if (!tool.changed()) return toToolDto(tool, view);
     await tool.save({ transaction });
@@ -350,8 +359,12 @@ export async function recordRetentionDecision(
     if (input.decision === 'keep_until' && input.keepUntil! <= view.today) {
       throw new AppError('validation_failed', 'Keep the tool until a date after today', 400, { keepUntil: ['Pick a date after today'] });
     }
-    if (input.decision !== 'keep_until' && tool.status === 'in_change') {
-      throw new AppError('wrong_state', `Tool ${tool.code} is being changed: finish or withdraw the change before scrapping or selling it`, 409);
+    if (input.decision !== 'keep_until') {
+      const holding = await changesHoldingTool(tool.id, transaction);
+      if (tool.status === 'in_change' || holding.length) {
+        const which = holding.length ? holdingWords(holding) : 'its change';
+        throw new AppError('wrong_state', `Tool ${tool.code} is being changed: close or cancel ${which} before scrapping or selling it`, 409);
+      }
     }
     const before = auditable(tool);
     tool.set({

@@ -49,6 +49,7 @@ import { actorContext, visibilitySql } from './request-access';
 import { accessFacts, buildDetail, computedFields, findVisibleRequest, impactOf, loadImpactContext, loadItems, toSummary } from './request-views';
 import { appendSignOff, loadSignedContent, loadSignOffs, signedContent, toSignOffDto, verifyChain } from './sign-off-chain';
 import { acceptedRolesOf, actionLabel, contextAsSigned, factsFromImpact } from './workflow-view';
+import { changesHoldingTool } from './tool-changes';
 
 export interface WorkflowDeps {
   sequelize: Sequelize;
@@ -341,7 +342,8 @@ async function closeOnTool(transaction: Transaction, actor: Actor, r: ChangeRequ
   }
   const before = { currentRevision: oldRevision, status: tool.status };
   tool.currentRevision = newRevision;
-  tool.status = 'active';
+  // Another change cleared to cut on the same tool keeps it "being changed".
+  tool.status = (await changesHoldingTool(tool.id, transaction, r.id)).length ? 'in_change' : 'active';
   await tool.save({ transaction });
   await recordAudit(transaction, actor, 'tool.revise', 'tool', tool.id, before, {
     currentRevision: newRevision,
