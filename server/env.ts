@@ -1,6 +1,9 @@
 // The only module that reads process.env on the server. Validated once; a bad key stops the start.
 import { z } from 'zod';
 
+/** The development key of the record chains: public, so production refuses it too. */
+export const BUILT_IN_RECORD_CHAIN_KEY = 'toolgate-local-development-record-chain-key-0001';
+
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
   PORT: z.coerce.number().int().min(0).max(65535).default(8080),
@@ -20,6 +23,10 @@ const envSchema = z.object({
   DIST_DIR: z.string().default('dist'),
   DEV_WEB_ORIGIN: z.string().url().optional(),
   SQL_LOG: z.stringbool().default(false),
+  /** Key of the sign-off and audit chains (HMAC-SHA256); kept out of the database, so rows cannot be re-chained there. */
+  RECORD_CHAIN_KEY: z.string().min(32).default(BUILT_IN_RECORD_CHAIN_KEY),
+  /** Append-only file where every new chain head is written, outside the database. */
+  RECORD_ANCHOR_FILE: z.string().default('.data/record-anchors.log'),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -2,15 +2,24 @@
 //
 // Each sign-off keeps the request's signed content at that moment (`content`) and its SHA-256
 // (`content_hash`, over the canonical JSON of the content), so a signature is bound to exactly what
-// was signed. Each sign-off's `hash` is SHA-256(prev_hash + canonical JSON of its own fields +
-// content_hash), with prev_hash the previous sign-off's hash (64 zeros for the first), so changing,
-// removing or re-ordering any row breaks every hash after it. `verifyChain` recomputes all of it,
-// and checks the request itself against the chain where the lifecycle allows no edits.
+// was signed. Each sign-off's `hash` is HMAC-SHA256, keyed with RECORD_CHAIN_KEY (a setting the
+// database never holds), over prev_hash + canonical JSON of its own fields + content_hash, with
+// prev_hash the previous sign-off's hash (64 zeros for the first): changing, removing or
+// re-ordering any row breaks every hash after it, and without the key nobody can recompute them.
+// Every new head is also anchored outside the database (record-anchor.ts, and the transition
+// e-mail), so dropping the last sign-offs is found too. `verifyChain` recomputes all of it, checks
+// each signer could sign that step then (membership_history), and checks the request itself
+// against the chain where the lifecycle allows no edits.
 import type { Transaction } from 'sequelize';
 import { lifecycle, type RequestAction, type RequestState, type SignOffDecision } from '../../shared/domain/lifecycle';
 import type { SignOff, VerifyResult } from '../../shared/schemas/sign-offs';
 import { roleLabels, type Role } from '../../shared/schemas/users';
+import { createHmac } from 'node:crypto';
+import { QueryTypes } from 'sequelize';
+import { canTake } from '../../shared/domain/lifecycle';
+import { env } from '../env';
 import { canonicalJson, sha256Hex } from '../lib/canonical-json';
+import { appendAnchor, readAnchors, type AnchorStore } from '../lib/record-anchor';
 import { ChangeItemModel, ChangeRequestModel, SignOffModel, ToolModel } from '../models';
 
 export const GENESIS_HASH = '0'.repeat(64);
@@ -105,7 +114,11 @@ export interface ChainFields {
   details: Record<string, unknown>;
 }
 
-export const chainHash = (prevHash: string, fields: ChainFields, contentHash: string) => sha256Hex(prevHash + canonicalJson(fields) + contentHash);
+/** Where chain heads are anchored outside the database, and the key of the chains. */
+export const anchorStore = (): AnchorStore => ({ file: env.RECORD_ANCHOR_FILE, key: env.RECORD_CHAIN_KEY });
+
+export const chainHash = (prevHash: string, fields: ChainFields, contentHash: string, key = env.RECORD_CHAIN_KEY) =>
+  createHmac('sha256', key).update(prevHash + canonicalJson(fields) + contentHash, 'utf8').digest('hex');
 
 const fieldsOf = (s: SignOffModel): ChainFields => ({
   requestId: s.requestId,
@@ -165,13 +178,23 @@ export async function appendSignOff(transaction: Transaction, requestId: string,
     signedAt: signedAt.toISOString(),
     details: s.details,
   };
+  const hash = chainHash(prevHash, fields, contentHash);
+  // The new head leaves the database only once it is committed (a rolled-back one never existed).
+  // A failed write is reported but cannot undo the committed signature; the anchor then lags.
+  transaction.afterCommit(() => {
+    try {
+      appendAnchor(anchorStore(), { chain: 'sign_offs', id: requestId, seq, hash, at: signedAt.toISOString() });
+    } catch (err) {
+      console.error('The sign-off chain head could not be written to the record anchor file', err);
+    }
+  });
   return SignOffModel.create(
     {
       ...fields,
       signedAt,
       contentHash,
       prevHash,
-      hash: chainHash(prevHash, fields, contentHash),
+      hash,
       idempotencyKey: s.idempotencyKey,
       idempotencyFingerprint: s.idempotencyFingerprint ?? null,
       content: content as unknown as Record<string, unknown>,
@@ -261,5 +284,65 @@ export async function verifyChain(r: ChangeRequestModel, transaction?: Transacti
   if (last && !EDITABLE_STATES.includes(r.status) && last.contentHash !== current) {
     return broken(rows.length, last.seq, `The request was changed after sign-off ${last.seq}, in a state where it may not be edited.`);
   }
+  const signer = await firstSignerProblem(r, rows, transaction);
+  if (signer) return broken(signer.index, signer.seq, signer.reason);
+  const anchored = anchorProblem(r.id, rows);
+  if (anchored) return broken(rows.length, anchored.seq, anchored.reason);
   return { ...base, intact: true, checked: rows.length };
+}
+
+interface Membership {
+  user_id: string;
+  role: Role;
+  factory_id: string | null;
+  brand_ids: string[];
+  active: boolean;
+  valid_from: Date;
+}
+
+/**
+ * Each signer, as they were when they signed (membership_history): active, in the role the row
+ * names, and with the brand or factory the step needs (a brand lead of this brand, a toolmaker of
+ * this tool's factory, the designer who wrote it). A signature older than the user's first known
+ * membership (seeded history) is checked against that first one.
+ */
+async function firstSignerProblem(r: ChangeRequestModel, rows: readonly SignOffModel[], transaction?: Transaction) {
+  if (!rows.length) return null;
+  const tool = r.tool ?? (await ToolModel.findByPk(r.toolId, { transaction }));
+  const history = await SignOffModel.sequelize!.query<Membership>(
+    'SELECT user_id, role, factory_id, brand_ids, active, valid_from FROM membership_history WHERE user_id IN (:ids) ORDER BY valid_from ASC, id ASC',
+    { replacements: { ids: [...new Set(rows.map((s) => s.userId))] }, type: QueryTypes.SELECT, transaction },
+  );
+  for (const [i, s] of rows.entries()) {
+    const mine = history.filter((h) => h.user_id === s.userId);
+    const held = [...mine].reverse().find((h) => new Date(h.valid_from) <= s.signedAt) ?? mine[0];
+    const who = `Sign-off ${s.seq} (${s.printedName})`;
+    if (!held) return { index: i, seq: s.seq, reason: `${who} names a person Toolgate has no record of.` };
+    if (!held.active) return { index: i, seq: s.seq, reason: `${who} was given by an account that was not active at the time.` };
+    if (held.role !== s.role) return { index: i, seq: s.seq, reason: `${who} says "${roleLabels[s.role] ?? s.role}", but the signer was "${roleLabels[held.role] ?? held.role}" at the time.` };
+    const can = canTake(s.action, s.fromStatus, held.role, {
+      isSubmitter: s.userId === r.submitterId,
+      isOwnBrand: !!tool && (held.brand_ids ?? []).includes(tool.brandId),
+      isOwnFactory: !!tool && held.role === 'toolmaker' && held.factory_id === tool.factoryId,
+      alreadyAccepted: [],
+      receiptConfirmed: true,
+    });
+    if (!can.ok && can.code === 'forbidden') {
+      return { index: i, seq: s.seq, reason: `${who} was given by someone who could not sign this step at the time (wrong brand, factory or role).` };
+    }
+  }
+  return null;
+}
+
+/** The heads anchored outside the database must all still be in the chain, with their fingerprint. */
+function anchorProblem(requestId: string, rows: readonly SignOffModel[]) {
+  const { anchors, forged } = readAnchors(anchorStore(), 'sign_offs', requestId);
+  if (forged) return { seq: rows.length, reason: 'A line of the record kept outside the database was altered.' };
+  const bySeq = new Map(rows.map((s) => [s.seq, s]));
+  for (const a of anchors) {
+    const row = bySeq.get(a.seq);
+    if (!row) return { seq: a.seq, reason: `Sign-off ${a.seq} is recorded outside the database but is missing here: sign-offs were removed.` };
+    if (row.hash !== a.hash) return { seq: a.seq, reason: `Sign-off ${a.seq} differs from the fingerprint recorded outside the database: the record was rewritten.` };
+  }
+  return null;
 }
