@@ -274,7 +274,7 @@ export async function seedRequests(transaction: Transaction, org: Org, registry:
           sha256: checked.sha256,
           width: checked.width,
           height: checked.height,
-          data,
+          data: checked.data,
           thumbnail: checked.thumbnail,
           uploadedBy: actor.id,
         },
