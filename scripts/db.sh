@@ -151,7 +151,19 @@ admin_psql() {
   run_as_pg "$BINDIR/psql" -X -q -v ON_ERROR_STOP=1 -h "$SOCKDIR" -p "$PGPORT" -U postgres -d postgres "$@"
 }
 
+# The role the server runs as: it owns nothing, so it cannot lift the append-only guards of the
+# record (grants per database: server/db/roles.ts). The app role owns the databases and migrates.
+SERVER_ROLE="${SERVER_ROLE:-toolgate_server}"
+SERVER_PASSWORD="${SERVER_PASSWORD:-toolgate_server}"
+ensure_server_role() {
+  admin_psql >/dev/null <<SQL
+SELECT format('CREATE ROLE %I LOGIN PASSWORD %L NOSUPERUSER NOCREATEDB NOCREATEROLE NOINHERIT', '$SERVER_ROLE', '$SERVER_PASSWORD')
+  WHERE NOT EXISTS (SELECT FROM pg_roles WHERE rolname = '$SERVER_ROLE')\gexec
+SQL
+}
+
 ensure_databases() {
+  ensure_server_role
   admin_psql >/dev/null <<SQL
 SELECT format('CREATE ROLE %I LOGIN PASSWORD %L', '$APP_ROLE', '$APP_PASSWORD')
   WHERE NOT EXISTS (SELECT FROM pg_roles WHERE rolname = '$APP_ROLE')\gexec
@@ -237,7 +249,8 @@ case "${1:-}" in
   status) cmd_status ;;
   psql) shift; cmd_psql "$@" ;;
   url) url "${2:-}" ;;
+  roles) BINDIR="$(find_bindir)" || die "PostgreSQL not installed"; peek_dirs; is_running || die "not running: scripts/db.sh start first"; ensure_server_role ;;
   reset-test) cmd_reset "$TEST_DB" ;;
   reset) shift; cmd_reset "${1:-}" ;;
-  *) echo "usage: $0 {start|stop|status|psql [db]|url [db]|reset-test|reset <db>}" >&2; exit 2 ;;
+  *) echo "usage: $0 {start|stop|status|psql [db]|url [db]|roles|reset-test|reset <db>}" >&2; exit 2 ;;
 esac

@@ -5,6 +5,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { createSequelize } from '../server/db';
 import { migrateUp } from '../server/db/migrator';
+import { grantServerRole, serverRoleUrl } from '../server/db/roles';
 import { initModels } from '../server/models';
 import { seedDemo } from '../server/seed/run';
 import { startSmtpFake } from '../server/mail/smtp-fake';
@@ -60,6 +61,10 @@ export async function migrateAndSeed(databaseUrl: string) {
     say(done.length ? `applied ${done.length} migration(s)` : 'database schema is up to date');
     await seedDemo(sequelize);
     say('demo data is in place');
+    // The server runs as its own role, which may read and insert into the record but never rewrite it.
+    const roles = spawnSync('bash', [path.join(root, 'scripts/db.sh'), 'roles'], { stdio: ['ignore', 'ignore', 'inherit'] });
+    if (roles.status !== 0) throw new Error('the server database role could not be made (see the lines above)');
+    await grantServerRole(sequelize);
   } finally {
     await sequelize.close();
   }
@@ -68,7 +73,12 @@ export async function migrateAndSeed(databaseUrl: string) {
 export async function bringUp(opts: { databaseUrl: string; port: number; smtpPort: number; mailHttpPort: number }) {
   await migrateAndSeed(opts.databaseUrl);
   const mail = await startSmtpFake({ smtpPort: opts.smtpPort, httpPort: opts.mailHttpPort });
-  const server = await startServer({ port: opts.port, databaseUrl: opts.databaseUrl, distDir: process.env.DIST_DIR || path.join(root, 'dist') });
+  const server = await startServer({
+    port: opts.port,
+    databaseUrl: serverRoleUrl(opts.databaseUrl),
+    jobsDatabaseUrl: opts.databaseUrl,
+    distDir: process.env.DIST_DIR || path.join(root, 'dist'),
+  });
   return {
     async stop() {
       await server.stop();

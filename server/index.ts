@@ -10,11 +10,16 @@ import { initModels } from './models';
 import { startSchedules } from './jobs/schedules';
 import { registerStageReminders } from './jobs/stage-reminders';
 
-export async function startServer(opts: { port?: number; databaseUrl?: string; distDir?: string } = {}) {
+/**
+ * databaseUrl: what the server's own work runs as (scripts/stack.ts passes the server role, which
+ * may not rewrite the record); jobsDatabaseUrl: the job queue's connection, which installs and
+ * maintains its schema and so runs as the owner (default: databaseUrl).
+ */
+export async function startServer(opts: { port?: number; databaseUrl?: string; jobsDatabaseUrl?: string; distDir?: string } = {}) {
   const databaseUrl = opts.databaseUrl ?? env.DATABASE_URL;
   const sequelize = createSequelize(databaseUrl);
   initModels(sequelize);
-  const boss = await startBoss(databaseUrl);
+  const boss = await startBoss(opts.jobsDatabaseUrl ?? databaseUrl);
   await startEmailWorker(boss, createTransport());
   registerStageReminders();
   const stopSchedules = await startSchedules({ sequelize, boss });

@@ -304,7 +304,7 @@ interface Membership {
  * Each signer, as they were when they signed (membership_history): active, in the role the row
  * names, and with the brand or factory the step needs (a brand lead of this brand, a toolmaker of
  * this tool's factory, the designer who wrote it). A signature older than the user's first known
- * membership (seeded history) is checked against that first one.
+ * membership (seeded history) is checked against what the account was set up with.
  */
 async function firstSignerProblem(r: ChangeRequestModel, rows: readonly SignOffModel[], transaction?: Transaction) {
   if (!rows.length) return null;
@@ -315,7 +315,7 @@ async function firstSignerProblem(r: ChangeRequestModel, rows: readonly SignOffM
   );
   for (const [i, s] of rows.entries()) {
     const mine = history.filter((h) => h.user_id === s.userId);
-    const held = [...mine].reverse().find((h) => new Date(h.valid_from) <= s.signedAt) ?? mine[0];
+    const held = [...mine].reverse().find((h) => new Date(h.valid_from) <= s.signedAt) ?? asSetUp(mine);
     const who = `Sign-off ${s.seq} (${s.printedName})`;
     if (!held) return { index: i, seq: s.seq, reason: `${who} names a person Toolgate has no record of.` };
     if (!held.active) return { index: i, seq: s.seq, reason: `${who} was given by an account that was not active at the time.` };
@@ -332,6 +332,13 @@ async function firstSignerProblem(r: ChangeRequestModel, rows: readonly SignOffM
     }
   }
   return null;
+}
+
+/** What an account was set up with: its last membership within a minute of its first. */
+function asSetUp(mine: readonly Membership[]) {
+  if (!mine.length) return undefined;
+  const until = new Date(mine[0]!.valid_from).getTime() + 60_000;
+  return [...mine].reverse().find((h) => new Date(h.valid_from).getTime() <= until);
 }
 
 /** The heads anchored outside the database must all still be in the chain, with their fingerprint. */
