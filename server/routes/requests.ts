@@ -9,6 +9,7 @@ import { MAX_UPLOAD_BYTES } from '../lib/images';
 import { deps, parseQuery } from '../lib/validate';
 import { checkMayUpload, deleteAttachment, readAttachment, uploadAttachment } from '../services/request-attachments';
 import * as requests from '../services/requests';
+import { buildCutSheet, papers } from '../services/cut-sheet';
 
 /** A path id that is not a UUID names nothing: 404, like an id that does not exist. */
 const idOf = (raw: unknown, what: string) => {
@@ -68,6 +69,15 @@ export function requestsRouter() {
   });
   r.get('/:id', anyRole, async (req, res) => {
     res.json(await requests.getRequestDetail(actorOf(res), idOf(req.params.id, 'Change request')));
+  });
+  // The cut sheet (PDF), for whoever may see the request; `paper` is a4 (default) or letter.
+  r.get('/:id/cut-sheet.pdf', anyRole, async (req, res) => {
+    const id = idOf(req.params.id, 'Change request');
+    const { paper } = parseQuery(z.object({ paper: z.enum(papers, { message: 'Pick the paper: a4 or letter' }).default('a4') }), req.query);
+    const sheet = await buildCutSheet(actorOf(res), id, paper);
+    res.setHeader('Cache-Control', 'private, no-store');
+    res.setHeader('Content-Disposition', `attachment; filename="${sheet.filename}"`);
+    res.type('application/pdf').send(sheet.data);
   });
   r.patch('/:id', requireRole('designer', 'engineer'), async (req, res) => {
     const id = idOf(req.params.id, 'Change request');
