@@ -249,6 +249,14 @@ function transitionAllowed(action: RequestAction, from: RequestState, to: Reques
   return rule.to.includes(to) || (rule.collectsAcceptance === true && to === from);
 }
 
+/** What verifyChain looks at, as the request screen lists it. */
+export const CHECK_COVERS = [
+  'Each sign-off still matches what was signed, and its sealed fingerprint (made with a key the database does not hold)',
+  'The sign-offs are complete and in order, checked against the copy kept outside the database',
+  'Each signer held the role and the brand or factory the step needed when they signed',
+  'Each step is one the lifecycle allows, and the request is where its sign-offs end',
+];
+
 /**
  * Recomputes the chain: for every sign-off its order, its link to the one before, its content hash
  * from the stored content, its own hash, and a lifecycle-allowed transition that starts where the
@@ -259,7 +267,13 @@ export async function verifyChain(r: ChangeRequestModel, transaction?: Transacti
   const rows = await loadSignOffs(r.id, transaction);
   const { contentHash: current } = await loadSignedContent(r, transaction);
   const last = rows[rows.length - 1];
-  const base = { headHash: last?.hash ?? null, currentContentHash: current, contentMatchesLatest: last ? last.contentHash === current : true };
+  const base = {
+    headHash: last?.hash ?? null,
+    currentContentHash: current,
+    contentMatchesLatest: last ? last.contentHash === current : true,
+    covers: CHECK_COVERS,
+    checkedAt: new Date().toISOString(),
+  };
   const broken = (i: number, seq: number, reason: string): VerifyResult => ({ ...base, intact: false, checked: i, firstBrokenSeq: seq, reason });
 
   let prev = GENESIS_HASH;

@@ -76,6 +76,10 @@ export const verifyResultSchema = z.object({
   currentContentHash: z.string(),
   /** False when the request's content differs from what the last sign-off was given for. */
   contentMatchesLatest: z.boolean(),
+  /** What the check looked at, in words for the screen. */
+  covers: z.array(z.string()).optional(),
+  /** When the check ran (UTC ISO 8601). */
+  checkedAt: z.string().optional(),
 });
 export type VerifyResult = z.infer<typeof verifyResultSchema>;
 

@@ -93,5 +93,7 @@ describe('the record check against tampering', () => {
     const id = await requestIn(t.app, s, 'cut_authorized');
     const v = await verify(s.users.lead.auth, id);
     expect(v).toMatchObject({ intact: true, checked: 3 });
+    expect(v.covers!.join(' ')).toMatch(/key the database does not hold.*outside the database.*role and the brand or factory/);
+    expect(Date.parse(v.checkedAt!)).not.toBeNaN();
   });
 });

@@ -93,6 +93,7 @@ function VerifyBanner({ v, testID }: { v: VerifyResult; testID: string }) {
           Every sign-off links to the one before it and still matches what was signed.
           {v.contentMatchesLatest ? '' : ' The request was edited after the last sign-off, as this stage allows: the next signature covers the new version.'}
         </AppText>
+        <CheckScope v={v} testID={`${testID}-scope`} />
       </Banner>
     );
   }
@@ -102,7 +103,25 @@ function VerifyBanner({ v, testID }: { v: VerifyResult; testID: string }) {
       <AppText variant="small">
         {v.checked} {v.checked === 1 ? 'sign-off holds' : 'sign-offs hold'} before it. Something was changed outside Toolgate: tell your administrator and do not rely on the later signatures.
       </AppText>
+      <CheckScope v={v} testID={`${testID}-scope`} />
     </Banner>
+  );
+}
+
+/** What the record check covers and when it ran. */
+function CheckScope({ v, testID }: { v: VerifyResult; testID: string }) {
+  if (!v.covers?.length) return null;
+  const at = v.checkedAt ? new Date(v.checkedAt) : null;
+  return (
+    <View testID={testID} style={styles.scope}>
+      <AppText variant="small">The check covers:</AppText>
+      {v.covers.map((c) => (
+        <AppText key={c} variant="small">
+          {`• ${c}`}
+        </AppText>
+      ))}
+      {at ? <AppText variant="small">{`Last run ${at.toISOString().slice(0, 16).replace('T', ' ')} UTC.`}</AppText> : null}
+    </View>
   );
 }
 
@@ -183,6 +202,7 @@ function Entry({ s, zone, currency, last, testID }: { s: SignOff; zone: string; 
 }
 
 const styles = StyleSheet.create({
+  scope: { marginTop: space.sm, gap: space.xxs },
   entry: { flexDirection: 'row', gap: space.md, paddingHorizontal: space.lg, paddingTop: space.md, paddingBottom: space.xs },
   divider: { borderBottomWidth: 1, borderBottomColor: colors.steelLight },
   rail: { alignItems: 'center', width: 32 },
