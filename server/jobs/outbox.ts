@@ -7,11 +7,31 @@ import { env } from '../env';
 
 export const EMAIL_QUEUE = 'email-send';
 
+/** A file the worker makes at send time from a reference, so the queued job stays small. */
+export interface MailAttachmentRef {
+  kind: 'cut_sheet';
+  requestId: string;
+  paper: 'a4' | 'letter';
+}
+
 export interface EmailJob {
   to: string[];
   subject: string;
   text: string;
   html?: string;
+  attachments?: MailAttachmentRef[];
+}
+
+/** The files of a job, made now (the cut sheet as the record stands when the mail goes out). */
+async function attachmentsOf(job: EmailJob) {
+  if (!job.attachments?.length) return undefined;
+  const { buildCutSheetForMail } = await import('../services/cut-sheet');
+  const files = [];
+  for (const a of job.attachments) {
+    const sheet = await buildCutSheetForMail(a.requestId, a.paper);
+    files.push({ filename: sheet.filename, content: sheet.data, contentType: 'application/pdf' });
+  }
+  return files;
 }
 
 export interface Outbox {
@@ -61,6 +81,7 @@ export async function startEmailWorker(boss: PgBoss, transport: Transporter, pol
           subject: job.data.subject,
           text: job.data.text,
           html: job.data.html,
+          attachments: await attachmentsOf(job.data),
           messageId: `<${job.id}@toolgate.local>`,
         });
       } catch (err) {

@@ -449,6 +449,8 @@ async function queueRequestMails(
   let queued = 0;
   for (const g of groups) {
     const job = requestMail({ to: g.users.map((u) => u.email), kind, request, transition, actions: g.actions.map(actionLabel) });
+    // The release to the factory carries the cut sheet, made by the mail worker when it sends.
+    if (kind === 'act' && r.status === 'cut_authorized' && g.role === 'toolmaker') job.attachments = [{ kind: 'cut_sheet', requestId: r.id, paper: 'a4' }];
     await enqueueEmail(tx.boss, job, outbox);
     queued += 1;
   }
