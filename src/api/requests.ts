@@ -148,3 +148,9 @@ export const deleteRequestAttachment = (requestId: string, attachmentId: string)
 /** Absolute address of an attachment's bytes or thumbnail (the API may sit on another origin in development). */
 export const attachmentSrc = (a: Pick<Attachment, 'url' | 'thumbnailUrl'>, which: 'original' | 'thumbnail' = 'original') =>
   apiUrl(which === 'thumbnail' ? a.thumbnailUrl : a.url);
+
+/** Paper sizes the cut sheet prints on. */
+export type CutSheetPaper = 'a4' | 'letter';
+
+/** Address of the request's cut sheet (PDF); the session cookie goes with it. */
+export const cutSheetUrl = (requestId: string, paper: CutSheetPaper) => apiUrl(`/api/requests/${encodeURIComponent(requestId)}/cut-sheet.pdf`, { paper });

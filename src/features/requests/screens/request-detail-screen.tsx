@@ -24,6 +24,7 @@ import { RequestImages } from '../components/request-images';
 import { RequestItems } from '../components/request-items';
 import { CannotUndoPill, RequestStatusPill } from '@/components/requests/request-status';
 import { SafetyCautions } from '../components/safety-cautions';
+import { CutSheetDownload } from '../components/cut-sheet-download';
 import { stateLook } from '@/lib/requests/status';
 
 const back = { href: '/requests' as const, label: 'Requests' };
@@ -132,6 +133,10 @@ function Detail({ r, workflow, numbers }: { r: RequestDetail; workflow: ReactNod
       ) : null}
 
       {workflow}
+
+      <Section title="Cut sheet" description="The printable sheet for the toolroom.">
+        <CutSheetDownload requestId={r.id} cleared={['cut_authorized', 'samples_review', 'closed'].includes(r.status)} testID="request-detail-cut-sheet" />
+      </Section>
 
       <Section title="Images" description="Before and after, with the places the cut items mark.">
         <Compare r={r} />
