@@ -26,6 +26,16 @@ section "type check"
 npx expo customize tsconfig.json >/dev/null 2>&1 || true  # writes typed routes (.expo/types)
 if npx tsc --noEmit -p .; then passed=$((passed + 1)); echo "type check passed"; else failed=$((failed + 1)); echo "type check FAILED"; fi
 
+section "poppler-utils (the cut sheet test renders page 1 to shots/ with pdftoppm)"
+if ! command -v pdftoppm >/dev/null 2>&1; then
+  echo "installing Debian's poppler-utils..."
+  if [ "$(id -u)" = 0 ]; then
+    (DEBIAN_FRONTEND=noninteractive apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq poppler-utils >/dev/null) || echo "could not install poppler-utils"
+  else
+    sudo -n apt-get install -y -qq poppler-utils >/dev/null 2>&1 || echo "could not install poppler-utils (not root)"
+  fi
+fi
+
 section "unit and API tests (jest)"
 rm -f .cache/jest-results.json
 npx jest --ci --json --outputFile=.cache/jest-results.json
