@@ -20,7 +20,7 @@ import { canTake } from '../../shared/domain/lifecycle';
 import { env } from '../env';
 import { canonicalJson, sha256Hex } from '../lib/canonical-json';
 import { appendAnchor, readAnchors, type AnchorStore } from '../lib/record-anchor';
-import { ChangeItemModel, ChangeRequestModel, SignOffModel, ToolModel } from '../models';
+import { ChangeItemModel, type ChangeRequestModel, SignOffModel, ToolModel } from '../models';
 
 export const GENESIS_HASH = '0'.repeat(64);
 
