@@ -71,17 +71,18 @@ export function heading(doc: Doc, label: Bilingual) {
 export function field(doc: Doc, label: Bilingual, value: string, opts: { x?: number; width?: number; labelWidth?: number; bold?: boolean } = {}) {
   const x = opts.x ?? doc.page.margins.left;
   const width = opts.width ?? contentWidth(doc);
-  const lw = opts.labelWidth ?? 150;
+  const lw = opts.labelWidth ?? 170;
   doc.font('body').fontSize(9);
-  const labelText = `${label.en}\n${label.zh}`;
+  // One line when it fits (English, then Chinese); it wraps beneath when it does not.
+  const labelText = `${label.en}  ${label.zh}`;
   const valueHeight = doc.font(opts.bold ? 'bold' : 'body').fontSize(9.5).heightOfString(value || '–', { width: width - lw - 6 });
   const labelHeight = doc.font('body').fontSize(7.5).heightOfString(labelText, { width: lw });
   const h = Math.max(valueHeight, labelHeight);
-  ensureSpace(doc, h + 4);
+  ensureSpace(doc, h + 3);
   const y = doc.y;
   doc.font('body').fontSize(7.5).fillColor(MUTED).text(labelText, x, y, { width: lw });
   doc.font(opts.bold ? 'bold' : 'body').fontSize(9.5).fillColor(INK).text(value || '–', x + lw + 6, y, { width: width - lw - 6 });
-  doc.y = y + h + 4;
+  doc.y = y + h + 3;
   doc.x = doc.page.margins.left;
 }
 

@@ -60,14 +60,14 @@ export function toolBlock(doc: Doc, d: SheetData) {
 export function itemsBlock(doc: Doc, d: SheetData) {
   heading(doc, L.items);
   d.detail.items.forEach((item, i) => {
-    // Keep an item's number with at least its first rows.
-    ensureSpace(doc, 120);
+    // Keep an item on one page (about 150 pt; a long note may still run over).
+    ensureSpace(doc, 150);
     const y = doc.y;
     doc.circle(MARGIN + 9, y + 9, 9).fillColor(MARK).fill();
     doc.font('bold').fontSize(10).fillColor('#FFFFFF').text(String(i + 1), MARGIN, y + 3.5, { width: 18, align: 'center' });
     doc.fillColor(INK).font('bold').fontSize(11).text(item.partName, MARGIN + 26, y + 2, { width: contentWidth(doc) - 26 });
     doc.y = Math.max(doc.y, y + 22);
-    const opts = { x: MARGIN + 26, width: contentWidth(doc) - 26, labelWidth: 140 };
+    const opts = { x: MARGIN + 26, width: contentWidth(doc) - 26, labelWidth: 170 };
     field(doc, L.effect, both(effectLabels[item.effect]), opts);
     field(doc, L.method, both(methodLabels[item.method]), opts);
     field(doc, L.size, `${item.size} ${item.unit}`, { ...opts, bold: true });
