@@ -11,8 +11,8 @@ import { createHmac } from 'node:crypto';
 import { canonicalJson } from './canonical-json';
 
 export interface Anchor {
-  /** What the head belongs to: a request's sign-off chain. */
-  chain: 'sign_offs';
+  /** What the head belongs to: a request's sign-off chain, or the audit trail. */
+  chain: 'sign_offs' | 'audit_events';
   id: string;
   seq: number;
   hash: string;

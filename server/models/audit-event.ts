@@ -11,6 +11,10 @@ export class AuditEventModel extends Model<InferAttributes<AuditEventModel>, Inf
   declare entityId: string | null;
   declare before: unknown;
   declare after: unknown;
+  /** Position in the audit chain (null for events written before the chain began). */
+  declare seq: CreationOptional<number | null>;
+  declare prevHash: CreationOptional<string | null>;
+  declare hash: CreationOptional<string | null>;
 
   static initModel(sequelize: Sequelize) {
     AuditEventModel.init(
@@ -24,6 +28,9 @@ export class AuditEventModel extends Model<InferAttributes<AuditEventModel>, Inf
         entityId: { type: DataTypes.STRING(64), allowNull: true },
         before: { type: DataTypes.JSONB, allowNull: true },
         after: { type: DataTypes.JSONB, allowNull: true },
+        seq: { type: DataTypes.BIGINT, allowNull: true },
+        prevHash: { type: DataTypes.STRING(64), allowNull: true },
+        hash: { type: DataTypes.STRING(64), allowNull: true },
       },
       { sequelize, tableName: 'audit_events', timestamps: false },
     );

@@ -3,6 +3,7 @@ import { Router } from 'express';
 import type { AppDeps } from '../app';
 import { requireAuth } from '../lib/auth';
 import { refuseUnstorableText } from '../lib/text-guard';
+import { auditRouter } from './audit';
 import { authRouter } from './auth';
 import { healthRouter } from './health';
 import { meRouter } from './me';
@@ -23,6 +24,7 @@ export function apiRouter(deps: AppDeps) {
   r.use(requireAuth);
   r.use('/me', meRouter());
   r.use('/users', usersRouter());
+  r.use('/audit', auditRouter());
   r.use('/', organisationRouter());
   r.use('/', registryRouter());
   r.use('/', numbersRouter());

@@ -1,5 +1,6 @@
 import type { Transaction } from 'sequelize';
 import { AuditEventModel } from '../models';
+import { appendAuditEvents } from './audit-chain';
 import type { Actor } from '../lib/auth';
 
 export async function recordAudit(
@@ -11,8 +12,8 @@ export async function recordAudit(
   before: unknown,
   after: unknown,
 ) {
-  await AuditEventModel.create(
-    { actorId: actor?.id ?? null, actorName: actor?.name ?? null, action, entity, entityId, before: before ?? null, after: after ?? null },
-    { transaction },
-  );
+  const row = { actorId: actor?.id ?? null, actorName: actor?.name ?? null, action, entity, entityId, before: before ?? null, after: after ?? null };
+  // Chained (audit-chain.ts); without a caller's transaction, in one of its own.
+  if (transaction) await appendAuditEvents(transaction, [row]);
+  else await AuditEventModel.sequelize!.transaction((t) => appendAuditEvents(t, [row]));
 }

@@ -35,7 +35,8 @@ import type { Actor } from '../lib/auth';
 import { AppError } from '../lib/errors';
 import { unstorableText } from '../lib/text-guard';
 import { changesHolding, holdingWords } from './tool-changes';
-import { AuditEventModel, BillOfPartsModel, BrandModel, FactoryModel, PartModel, ProductModel, ToolModel, ToolRevisionModel } from '../models';
+import { appendAuditEvents } from './audit-chain';
+import { BillOfPartsModel, BrandModel, FactoryModel, PartModel, ProductModel, ToolModel, ToolRevisionModel } from '../models';
 
 export const MAX_IMPORT_ROWS = 5000;
 
@@ -431,7 +432,7 @@ async function apply(kind: ImportKind, plan: Planned<AnyModel>[], actor: Actor, 
     audit.push({ action: `${entity}.update`, entityId: row.id, before, after: row.get({ plain: true }) });
   }
   const events = audit.map((a) => ({ actorId: actor.id, actorName: actor.name, action: a.action, entity, entityId: a.entityId, before: a.before, after: a.after }));
-  for (let i = 0; i < events.length; i += 500) await AuditEventModel.bulkCreate(events.slice(i, i + 500), { transaction });
+  await appendAuditEvents(transaction, events);
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -498,7 +499,7 @@ export async function importRegistryCsv(sequelize: Sequelize, actor: Actor, kind
       throw new AppError('validation_failed', `Nothing was imported: ${problems}. Fix them and import again.`, 400, undefined, { report: r });
     }
     await apply(kind, planned, actor, transaction);
-    await AuditEventModel.create(
+    await appendAuditEvents(transaction, [
       {
         actorId: actor.id,
         actorName: actor.name,
@@ -508,8 +509,7 @@ export async function importRegistryCsv(sequelize: Sequelize, actor: Actor, kind
         before: null,
         after: { kind, rows: r.totalRows, created: r.created, updated: r.updated, unchanged: r.unchanged },
       },
-      { transaction },
-    );
+    ]);
     return { ...r, applied: true };
   });
 }

@@ -264,6 +264,9 @@ export const CHECK_COVERS = [
  * state where no edits are allowed, its content must be what the last sign-off was given for.
  */
 export async function verifyChain(r: ChangeRequestModel, transaction?: Transaction): Promise<VerifyResult> {
+  // The anchors first: a head anchored before the rows are read was committed before, so it must
+  // be among them (one written meanwhile is not yet seen, never a false alarm).
+  const anchored = readAnchors(anchorStore(), 'sign_offs', r.id);
   const rows = await loadSignOffs(r.id, transaction);
   const { contentHash: current } = await loadSignedContent(r, transaction);
   const last = rows[rows.length - 1];
@@ -300,8 +303,8 @@ export async function verifyChain(r: ChangeRequestModel, transaction?: Transacti
   }
   const signer = await firstSignerProblem(r, rows, transaction);
   if (signer) return broken(signer.index, signer.seq, signer.reason);
-  const anchored = anchorProblem(r.id, rows);
-  if (anchored) return broken(rows.length, anchored.seq, anchored.reason);
+  const anchorBroken = anchorProblem(anchored, rows);
+  if (anchorBroken) return broken(rows.length, anchorBroken.seq, anchorBroken.reason);
   return { ...base, intact: true, checked: rows.length };
 }
 
@@ -356,8 +359,7 @@ function asSetUp(mine: readonly Membership[]) {
 }
 
 /** The heads anchored outside the database must all still be in the chain, with their fingerprint. */
-function anchorProblem(requestId: string, rows: readonly SignOffModel[]) {
-  const { anchors, forged } = readAnchors(anchorStore(), 'sign_offs', requestId);
+function anchorProblem({ anchors, forged }: ReturnType<typeof readAnchors>, rows: readonly SignOffModel[]) {
   if (forged) return { seq: rows.length, reason: 'A line of the record kept outside the database was altered.' };
   const bySeq = new Map(rows.map((s) => [s.seq, s]));
   for (const a of anchors) {
