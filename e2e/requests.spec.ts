@@ -2,7 +2,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
-import type { Page } from '@playwright/test';
+import type { Page, Route } from '@playwright/test';
 import { expect, signInAs, test } from './fixtures';
 
 // Change requests in the browser: the designer writes one from a phone with before and after
@@ -207,7 +207,7 @@ test.describe('change requests', () => {
     await signInAs(page, DESIGNER);
     const r = await newDraftByApi(page, `Offline test ${id}`);
     // Saves fail as if the connection were gone.
-    const offline = (route: import('@playwright/test').Route) => (route.request().method() === 'PATCH' ? route.abort('internetdisconnected') : route.continue());
+    const offline = (route: Route) => (route.request().method() === 'PATCH' ? route.abort('internetdisconnected') : route.continue());
     await page.route('**/api/requests/*', offline);
     await page.goto(`/requests/${r.id}/edit`);
     const form = page.getByTestId('request-form');

@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# `npm test`: type check, unit + API tests (Jest), browser tests (Playwright + Debian's chromium).
+# `npm test`: type check, lint, unit + API tests (Jest), browser tests (Playwright + Debian's chromium).
 # Starts what it needs (PostgreSQL, a seeded e2e database, the server and the mail fake on test
 # ports) and ends with one line "N passed, N failed" summing every runner.
 set -uo pipefail
@@ -35,6 +35,9 @@ if ! command -v pdftoppm >/dev/null 2>&1; then
     sudo -n apt-get install -y -qq poppler-utils >/dev/null 2>&1 || echo "could not install poppler-utils (not root)"
   fi
 fi
+
+section "lint (eslint)"
+if npx eslint . --max-warnings 0 --cache --cache-location .cache/eslint/; then passed=$((passed + 1)); echo "lint passed"; else failed=$((failed + 1)); echo "lint FAILED"; fi
 
 section "unit and API tests (jest)"
 rm -f .cache/jest-results.json

@@ -3,6 +3,6 @@ import { createSequelize } from '../db';
 import { createMigrator } from './migrator';
 
 const sequelize = createSequelize();
-createMigrator(sequelize, false)
+void createMigrator(sequelize, false)
   .runAsCLI()
   .then((ok) => sequelize.close().then(() => process.exit(ok ? 0 : 1)));

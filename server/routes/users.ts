@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { roleSchema, updateUserInput } from '../../shared/schemas/users';
+import { createUserInput, roleSchema, updateUserInput } from '../../shared/schemas/users';
 import { actorOf, requireRole } from '../lib/auth';
 import { deps } from '../lib/validate';
 import * as users from '../services/users';
@@ -15,7 +15,7 @@ export function usersRouter() {
     res.json({ data: await users.listUsers(listQuery.parse(req.query)), meta: {} });
   });
   r.post('/', async (req, res) => {
-    res.status(201).json(await users.createUser(deps(res), actorOf(res), req.body));
+    res.status(201).json(await users.createUser(deps(res), actorOf(res), createUserInput.parse(req.body)));
   });
   r.patch('/:id', async (req, res) => {
     const { id } = idParam.parse(req.params);

@@ -9,8 +9,8 @@ import type {
   ProductDetail,
   ProductListResponse,
   UpdateProductValues,
+  listProductsQuery,
 } from '../../shared/schemas/registry';
-import { listProductsQuery } from '../../shared/schemas/registry';
 import type { z } from 'zod';
 import type { Actor } from '../lib/auth';
 import { AppError, notFound } from '../lib/errors';

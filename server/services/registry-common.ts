@@ -6,7 +6,7 @@ import { toolLife } from '../../shared/domain/tool-life';
 import type { Part, Product, Revision, Tool } from '../../shared/schemas/registry';
 import type { Actor } from '../lib/auth';
 import { AppError, notFound } from '../lib/errors';
-import { BrandModel, CompanySettingModel, FactoryModel, PartModel, ProductModel, ToolModel, ToolRevisionModel, UserModel } from '../models';
+import { BrandModel, CompanySettingModel, FactoryModel, type PartModel, type ProductModel, ToolModel, type ToolRevisionModel, UserModel } from '../models';
 
 export const RETENTION_SETTING_KEY = 'retention_years';
 

@@ -21,7 +21,6 @@ export interface UploadedFile {
 /** A file name safe to store and to put in a header: no path, no control characters, at most 200. */
 export function safeFilename(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? '';
-  // eslint-disable-next-line no-control-regex
   // Lone surrogates (half characters) become U+FFFD, which every store and JSON column takes.
   // (after the cut to 200, which may split a pair).
   const clean = base.replace(/[\u0000-\u001f\u007f"]/g, '').trim().slice(-200).replace(/[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g, '\uFFFD');

@@ -13,8 +13,8 @@ import type {
   ToolDetail,
   ToolListResponse,
   UpdateToolValues,
+  retentionDecisionInput,
 } from '../../shared/schemas/registry';
-import { retentionDecisionInput } from '../../shared/schemas/registry';
 import type { z } from 'zod';
 import type { Actor } from '../lib/auth';
 import { AppError } from '../lib/errors';

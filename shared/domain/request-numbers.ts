@@ -22,7 +22,6 @@ import { DEFAULT_CURRENCY, minorUnitDigits, percentOfCents } from './money';
 import { planRun, SHOTS_NEEDED_RULE, type RunPlan } from './run-plan';
 import {
   compareConventions,
-  DEFAULT_SHRINK_CONVENTION,
   SHRINK_CONVENTIONS,
   shrinkMidpoint,
   steelChangeForDimension,

@@ -1,6 +1,5 @@
 import Decimal from 'decimal.js';
 import type { SafetyFlag } from '../schemas/change-items';
-import { groupDigits } from './decimal';
 
 // Safety cautions for cut items that may create a small part, a sharp point or edge, or change a
 // wall a child could break. The caution for lifting a heavy tool lives in handling.ts.

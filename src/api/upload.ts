@@ -61,7 +61,7 @@ export function uploadWithProgress<S extends z.ZodType>(path: string, schema: S,
         opts.onProgress?.(1);
         resolve(parseSuccess(xhr.status, text, schema) as z.output<S>);
       } catch (e) {
-        reject(e);
+        reject(e instanceof Error ? e : new Error(String(e)));
       }
     };
     xhr.onerror = () => reject(new ApiError(0, 'network', NETWORK_MESSAGE));

@@ -4,7 +4,6 @@ import { AppText } from '@/components/ui/app-text';
 import { Banner } from '@/components/ui/banner';
 import { Button } from '@/components/ui/button';
 import { plural } from '@/lib/registry-format';
-import { space } from '@/theme';
 
 /** The parts of an infinite query a keyset-paged list needs. */
 export interface PagedList {

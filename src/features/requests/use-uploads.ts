@@ -9,6 +9,6 @@ export function useUploads(requestKey: string): QueuedUpload[] {
   useEffect(() => {
     uploadQueue.setOnUploaded((requestId, attachment) => void addAttachmentToCache(qc, requestId, attachment));
   }, [qc]);
-  const all = useSyncExternalStore(uploadQueue.subscribe, uploadQueue.snapshot, uploadQueue.snapshot);
+  const all = useSyncExternalStore((listener: () => void) => uploadQueue.subscribe(listener), uploadQueue.snapshot, uploadQueue.snapshot);
   return all.filter((e) => e.requestKey === requestKey);
 }

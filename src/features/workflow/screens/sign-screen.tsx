@@ -207,7 +207,6 @@ function SignForm({
   const [formError, setFormError] = useState<{ at: 'approve' | 'other'; message: string } | null>(null);
   const [pending, setPending] = useState<Decision | null>(null);
 
-  const allTicked = ended.every((p) => ticked.has(p.id));
   const codeMatches = toolCode.trim().toUpperCase() === r.tool.code.trim().toUpperCase();
   const missing: string[] = [];
   if (guard) {
