@@ -299,6 +299,7 @@ export async function applyAction(
       comment: input.comment ?? '',
       at,
       cut,
+      record: { seq: signOff.seq, hash: signOff.hash },
     });
   }
 

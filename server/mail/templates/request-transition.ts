@@ -32,6 +32,8 @@ export interface TransitionFacts {
   at: Date;
   /** For a recorded cut. */
   cut?: { actualCostCents: number; cutOn: string; note: string } | null;
+  /** The request's record after this step: a copy of the chain head outside Toolgate. */
+  record?: { seq: number; hash: string };
 }
 
 export type RequestMailKind = 'act' | 'info' | 'reminder';
@@ -95,6 +97,11 @@ export function requestMail(p: RequestMailInput): EmailJob {
       const cut = `Cut on ${t.cut.cutOn}, actual cost ${formatCents(t.cut.actualCostCents)}.${t.cut.note ? ` ${t.cut.note}` : ''}`;
       lines.push(cut);
       html.push(`<p>${escapeHtml(cut)}</p>`);
+    }
+    if (t.record) {
+      const rec = `Record after this step: sign-off ${t.record.seq}, fingerprint ${t.record.hash}. Keep this e-mail: the record check on the request can be compared with it.`;
+      lines.push(rec);
+      html.push(`<p style="color:#52606D;font-size:12px">${escapeHtml(rec)}</p>`);
     }
   }
 
