@@ -342,7 +342,6 @@ async function firstSignerProblem(r: ChangeRequestModel, rows: readonly SignOffM
       isOwnBrand: !!tool && (held.brand_ids ?? []).includes(tool.brandId),
       isOwnFactory: !!tool && held.role === 'toolmaker' && held.factory_id === tool.factoryId,
       alreadyAccepted: [],
-      receiptConfirmed: true,
     });
     if (!can.ok && can.code === 'forbidden') {
       return { index: i, seq: s.seq, reason: `${who} was given by someone who could not sign this step at the time (wrong brand, factory or role).` };
