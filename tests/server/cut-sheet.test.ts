@@ -5,7 +5,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { ChangeRequestModel } from '../../server/models';
 import { openTestApp, request } from './helpers';
 import { createDraft, insertItem, jpegImage, makeScene, ridgeItem, type Scene } from './request-fixtures';
-import { actWith, pathTo } from './workflow-fixtures';
+import { actWith, pathTo, requestIn } from './workflow-fixtures';
 
 let t: ReturnType<typeof openTestApp>;
 beforeAll(() => {
@@ -116,6 +116,16 @@ describe('cut sheet PDF', () => {
     const pdf = await pdfOf(await get(d.id, s.users.engineer));
     expect(pdf.text).toContain('缩水补偿后的钢料尺寸');
     expect(pdf.text).toContain('31.357 mm');
+  });
+
+  it('when the cut is recorded, then the sheet carries the receipt in the record and the first-article report item by item', async () => {
+    const s = await makeScene();
+    const id = await requestIn(t.app, s, 'samples_review');
+    const pdf = await pdfOf(await get(id, s.users.designer));
+    expect(pdf.text).toContain('首件报告');
+    // The fixture's report: intended 12.40 ± 0.05, measured 12.43, within tolerance.
+    expect(pdf.text.replace(/\s+/g, ' ')).toMatch(/12\.40 ± 0\.05 mm .*12\.43 mm .*Pass 合格/);
+    expect(pdf.text).toContain(s.users.toolmaker.user.name);
   });
 
   it('when callers of each role ask, then the factory of the tool, engineer, brand and admin get it; another factory, another brand and an uncleared request for the toolmaker are 404', async () => {

@@ -8,7 +8,7 @@ import { AttachmentModel, ChangeRequestModel } from '../../models';
 import { detailById } from '../request-views';
 import { storedInputs } from '../request-numbers';
 import { finishPages, newDocument, toBuffer, type Paper } from './layout';
-import { cautionsBlock, endedBlock, imagesBlock, itemsBlock, recordBlock, steelSizeBlock, titleBlock, toolBlock, type SheetData, type SheetImage } from './sections';
+import { cautionsBlock, endedBlock, firstArticleBlock, imagesBlock, itemsBlock, recordBlock, steelSizeBlock, titleBlock, toolBlock, type SheetData, type SheetImage } from './sections';
 
 export { papers, type Paper } from './layout';
 
@@ -69,6 +69,7 @@ export function renderCutSheet(d: SheetData, paper: Paper): Promise<Buffer> {
   imagesBlock(doc, d);
   endedBlock(doc, d);
   cautionsBlock(doc, d);
+  firstArticleBlock(doc, d);
   recordBlock(doc, d);
   const stamped = !(CUTTABLE_STATES as readonly string[]).includes(d.detail.status);
   finishPages(doc, { ref: `${d.detail.tool.code} · ${d.ref}`, contentHash: d.detail.workflow?.currentContentHash ?? '' }, stamped);

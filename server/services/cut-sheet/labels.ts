@@ -58,6 +58,13 @@ export const L = {
   chainHead: b('Hash-chain head', '哈希链末端'),
   check: b('How to check', '核对方法'),
   contentHash: b('Content', '内容'),
+  firstArticle: b('First-article report', '首件报告'),
+  intended: b('Intended', '目标尺寸'),
+  measured: b('Measured', '实测尺寸'),
+  result: b('Result', '结果'),
+  pass: b('Pass', '合格'),
+  fail: b('Fail', '不合格'),
+  trial: b('Mold trial', '试模'),
   stamp: b('NOT FOR CUTTING', '不得用于加工'),
   stampNote: b(
     'This request is not cleared to cut yet: do not cut steel from this sheet.',

@@ -169,3 +169,20 @@ export function recordBlock(doc: Doc, d: SheetData) {
   const check = checkLine(d.detail.id);
   field(doc, L.check, `${check.en}\n${check.zh}`);
 }
+
+/** The first shots as measured by the factory, item by item, once the cut is recorded. */
+export function firstArticleBlock(doc: Doc, d: SheetData) {
+  const cut = d.detail.workflow?.cutReport;
+  if (!cut?.firstArticle?.length) return;
+  heading(doc, L.firstArticle);
+  if (cut.trialOn) field(doc, L.trial, `${cut.trialOn}${cut.trialShots !== undefined ? ` · ${cut.trialShots} shots 模次` : ''}`);
+  for (const f of cut.firstArticle) {
+    const verdict = f.pass ? L.pass : L.fail;
+    field(
+      doc,
+      { en: `${f.position + 1}. ${f.partName}`, zh: '' },
+      `${L.intended.en} ${L.intended.zh} ${f.intended} ± ${f.tolerance} ${f.unit} · ${L.measured.en} ${L.measured.zh} ${f.measured} ${f.unit} · ${verdict.en} ${verdict.zh}`,
+    );
+  }
+}
+
