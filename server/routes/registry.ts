@@ -1,8 +1,8 @@
 import express, { Router } from 'express';
 import { z } from 'zod';
 import {
-  billCsvColumns,
   createBillEntryInput,
+  csvColumnsOf,
   createPartInput,
   createProductInput,
   createToolInput,
@@ -10,12 +10,9 @@ import {
   importQuery,
   listProductsQuery,
   listToolsQuery,
-  partCsvColumns,
-  productCsvColumns,
   retentionDecisionInput,
   retentionDueQuery,
   retentionYearsInput,
-  toolCsvColumns,
   updateBillEntryInput,
   updatePartInput,
   updateProductInput,
@@ -133,7 +130,7 @@ export function registryRouter() {
   });
   r.get('/registry/import/template', readers, async (req, res) => {
     const { kind } = parseQuery(z.object({ kind: importKindSchema }), req.query);
-    const columns = { tools: toolCsvColumns, parts: partCsvColumns, products: productCsvColumns, bill: billCsvColumns }[kind];
+    const columns = csvColumnsOf[kind];
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="${kind}-template.csv"`);
     res.send(`${columns.join(',')}\r\n`);

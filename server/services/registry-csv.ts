@@ -11,14 +11,11 @@ import type { ZodType } from 'zod';
 import { centsToDecimalString, parseCents } from '../../shared/domain/money';
 import { ratedLifeFromClass } from '../../shared/domain/tool-life';
 import {
-  billCsvColumns,
   billCsvRow,
-  partCsvColumns,
+  csvColumnsOf,
   partCsvRow,
-  productCsvColumns,
   productCsvRow,
   requiredCsvColumns,
-  toolCsvColumns,
   toolCsvExportOnlyColumns,
   toolCsvRow,
   type BillCsvRow,
@@ -40,12 +37,7 @@ import { BillOfPartsModel, BrandModel, FactoryModel, PartModel, ProductModel, To
 
 export const MAX_IMPORT_ROWS = 5000;
 
-const columnsOf: Record<ImportKind, readonly string[]> = {
-  tools: [...toolCsvColumns, ...toolCsvExportOnlyColumns],
-  parts: partCsvColumns,
-  products: productCsvColumns,
-  bill: billCsvColumns,
-};
+const columnsOf: Record<ImportKind, readonly string[]> = { ...csvColumnsOf, tools: [...csvColumnsOf.tools, ...toolCsvExportOnlyColumns] };
 
 type CellErrors = { column: string | null; message: string }[];
 
@@ -518,7 +510,7 @@ export async function importRegistryCsv(sequelize: Sequelize, actor: Actor, kind
 // Export
 
 export function toolsToCsv(tools: Tool[]): string {
-  const columns = [...toolCsvColumns, ...toolCsvExportOnlyColumns];
+  const columns = columnsOf.tools;
   const rows = tools.map((t) => ({
     code: t.code,
     name: t.name,
@@ -544,6 +536,6 @@ export function toolsToCsv(tools: Tool[]): string {
     retention_due_on: t.retention.dueOn ?? '',
   }));
   // escapeFormulae: a cell starting with = + - @ is prefixed with ' so spreadsheets do not run it.
-  return Papa.unparse({ fields: columns, data: rows.map((r) => columns.map((c) => r[c as keyof typeof r])) }, { escapeFormulae: FORMULA_LIKE, newline: '\r\n' });
+  return Papa.unparse({ fields: [...columns], data: rows.map((r) => columns.map((c) => r[c as keyof typeof r])) }, { escapeFormulae: FORMULA_LIKE, newline: '\r\n' });
 }
 

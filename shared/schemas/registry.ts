@@ -589,37 +589,6 @@ export const importQuery = z.object({
   dryRun: z.preprocess(emptyToUndefined, z.stringbool().default(true)),
 });
 
-export const toolCsvColumns = [
-  'code',
-  'name',
-  'brand_code',
-  'factory',
-  'construction',
-  'mold_class',
-  'rated_shots',
-  'rated_shots_source',
-  'cavity_count',
-  'weight_kg',
-  'build_cost',
-  'currency',
-  'build_date',
-  'shot_count',
-  'last_run_date',
-  'status',
-  'storage_location',
-] as const;
-/** Extra columns in the export; accepted and ignored by the import, so an export can be re-imported. */
-export const toolCsvExportOnlyColumns = ['current_revision', 'remaining_shots', 'percent_used', 'life_band', 'retention_due_on'] as const;
-export const partCsvColumns = ['tool_code', 'part_name', 'resin', 'cavities_per_shot'] as const;
-export const productCsvColumns = ['sku', 'name', 'brand_code', 'status', 'fob', 'wholesale', 'retail', 'currency', 'planned_units'] as const;
-export const billCsvColumns = ['sku', 'tool_code', 'part_name', 'revision', 'quantity_per_unit'] as const;
-export const requiredCsvColumns: Record<ImportKind, readonly string[]> = {
-  tools: ['code', 'name', 'brand_code', 'factory', 'construction', 'mold_class', 'cavity_count'],
-  parts: ['tool_code', 'part_name', 'resin', 'cavities_per_shot'],
-  products: ['sku', 'name', 'brand_code'],
-  bill: ['sku', 'tool_code', 'part_name'],
-};
-
 const cell = z.string().trim();
 const optionalCell = z
   .string()
@@ -646,8 +615,9 @@ export const toolCsvRow = z.object({
   construction: cell.toLowerCase().pipe(constructionSchema),
   mold_class: intCell(moldClassSchema),
   rated_shots: optionalIntCell(ratedShotsSchema),
-  rated_shots_source: optionalCell,
-  cavity_count: intCell(z.number().int().min(1, { message: 'A tool has at least 1 cavity' }).max(1000)),
+  // the same rules as the API's tool fields (one rule whichever way a tool is written)
+  rated_shots_source: optionalCell.pipe(toolEditable.ratedShotsSource.optional()),
+  cavity_count: intCell(toolEditable.cavityCount),
   weight_kg: z.union([
     z.undefined(),
     z.literal('').transform(() => undefined),
@@ -693,6 +663,25 @@ export const billCsvRow = z.object({
   quantity_per_unit: optionalIntCell(z.number().int().min(1, { message: 'At least 1 per unit' }).max(1000)),
 });
 export type BillCsvRow = z.output<typeof billCsvRow>;
+
+// The import's columns are the row schemas' keys; a column is required when its cell may not be left out.
+const columnsOfRow = <S extends z.ZodRawShape>(row: z.ZodObject<S>) => Object.keys(row.shape) as (keyof S & string)[];
+const requiredOfRow = (row: z.ZodObject<z.ZodRawShape>) => columnsOfRow(row).filter((column) => !z.safeParse(row.shape[column]!, undefined).success);
+
+export const toolCsvColumns = columnsOfRow(toolCsvRow);
+/** Extra columns in the export; accepted and ignored by the import, so an export can be re-imported. */
+export const toolCsvExportOnlyColumns = ['current_revision', 'remaining_shots', 'percent_used', 'life_band', 'retention_due_on'] as const;
+export const partCsvColumns = columnsOfRow(partCsvRow);
+export const productCsvColumns = columnsOfRow(productCsvRow);
+export const billCsvColumns = columnsOfRow(billCsvRow);
+/** The columns of each kind's file, as the template and the import screen list them. */
+export const csvColumnsOf: Record<ImportKind, readonly string[]> = { tools: toolCsvColumns, parts: partCsvColumns, products: productCsvColumns, bill: billCsvColumns };
+export const requiredCsvColumns: Record<ImportKind, readonly string[]> = {
+  tools: requiredOfRow(toolCsvRow),
+  parts: requiredOfRow(partCsvRow),
+  products: requiredOfRow(productCsvRow),
+  bill: requiredOfRow(billCsvRow),
+};
 
 export const importRowSchema = z.object({
   /** Line number in the file (the header is line 1). */

@@ -219,3 +219,26 @@ describe('parts, products and bill CSV import', () => {
     expect(await BillOfPartsModel.count({ where: { productId: product.id } })).toBe(0);
   });
 });
+
+describe('one rule for the API and the CSV import', () => {
+  it('when a tool row gives rated shots with a source too short for the API, then the import refuses it as the API does', async () => {
+    const { brand, factory, engineer, prefix } = await world();
+    const api = await request(t.app)
+      .post('/api/tools')
+      .set(engineer.auth)
+      .send({ code: `${prefix}-9`, name: 'Short source', brandId: brand.id, factoryId: factory.id, construction: 'aluminium', moldClass: 104, ratedShots: 90000, ratedShotsSource: 'ok', cavityCount: 2 });
+    expect(api.status).toBe(400);
+    expect(api.body.error.fieldErrors.ratedShotsSource).toBeDefined();
+
+    const csv = [TOOL_HEADER, `${prefix}-1,Short source,${brand.code},${factory.name},aluminium,104,90000,ok,2,,,,,,,,`].join('\n');
+    const res = await importCsv(engineer.auth, 'tools', csv, true);
+    expect(res.status).toBe(200);
+    expect(res.body.rows[0]).toMatchObject({ action: 'error', errors: [{ column: 'rated_shots_source', message: 'Say where the rated shots come from' }] });
+  });
+
+  it('when the import lists its columns, then they are the row schema keys and the required ones are those without a default', async () => {
+    const { engineer } = await world();
+    const res = await importCsv(engineer.auth, 'parts', 'tool_code,part_name,colour\nX-1,Head,Red', true);
+    expect(res.body.fileErrors).toEqual(['Missing columns: resin, cavities_per_shot', 'Unknown column: colour (expected: tool_code, part_name, resin, cavities_per_shot)']);
+  });
+});

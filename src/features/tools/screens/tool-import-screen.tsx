@@ -1,12 +1,9 @@
 import { useState } from 'react';
 import { Platform, StyleSheet, View } from 'react-native';
 import {
-  billCsvColumns,
+  csvColumnsOf,
   importKinds,
-  partCsvColumns,
-  productCsvColumns,
   requiredCsvColumns,
-  toolCsvColumns,
   type ImportKind,
   type ImportReport,
 } from '@shared/schemas/registry';
@@ -32,7 +29,7 @@ const kindLabels: Record<ImportKind, { label: string; hint: string }> = {
   products: { label: 'Products', hint: 'Matched by SKU' },
   bill: { label: 'Bill of parts', hint: 'Matched by SKU, tool code and part name' },
 };
-const columnsOf: Record<ImportKind, readonly string[]> = { tools: toolCsvColumns, parts: partCsvColumns, products: productCsvColumns, bill: billCsvColumns };
+const columnsOf = csvColumnsOf;
 
 /** Data lines in a CSV (not counting the header or blank lines); quoted line breaks are rare in these files. */
 const dataLines = (csv: string) => Math.max(0, csv.split(/\r\n|\n|\r/).filter((l) => l.trim() !== '').length - 1);
