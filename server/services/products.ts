@@ -16,7 +16,7 @@ import type { Actor } from '../lib/auth';
 import { AppError, notFound } from '../lib/errors';
 import { BillOfPartsModel, BrandModel, FactoryModel, PartModel, ProductModel, ToolModel, ToolRevisionModel } from '../models';
 import { recordAudit } from './audit';
-import { assertEditable, containsPattern, decodeCursor, encodeCursor, iso, scopeOf, staleVersion, toProductDto, type Scope } from './registry-common';
+import { assertEditable, containsPattern, decodeCursor, encodeCursor, iso, productAuditRecord, scopeOf, staleVersion, toProductDto, type Scope } from './registry-common';
 import { billStatesFor } from './tools';
 
 const withBrand = [{ model: BrandModel, as: 'brand', attributes: ['id', 'code', 'name'] }];
@@ -152,10 +152,7 @@ async function checkSkuFree(sku: string, exceptId?: string, transaction?: Transa
   if (clash && clash.id !== exceptId) throw new AppError('conflict', `A product with SKU ${sku} already exists`, 409, { sku: ['Already in use'] });
 }
 
-const productAudit = (p: ProductModel) => {
-  const { brand: _b, bill: _l, createdAt: _c, updatedAt: _u, version: _v, ...rest } = p.get({ plain: true }) as Record<string, unknown>;
-  return rest;
-};
+const productAudit = productAuditRecord;
 
 export async function createProduct(sequelize: Sequelize, actor: Actor, input: CreateProductValues) {
   await checkBrand(input.brandId);

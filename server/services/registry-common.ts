@@ -186,3 +186,16 @@ export function staleVersion(what: string, current: unknown) {
     current,
   });
 }
+
+/** What an audit event keeps of a tool: its own columns, without version, timestamps or joined rows. */
+export const toolAuditRecord = (t: ToolModel) => {
+  const { version: _v, createdAt: _c, updatedAt: _u, ...rest } = t.get({ plain: true }) as Record<string, unknown>;
+  for (const k of ['brand', 'factory', 'decider', 'parts', 'revisions']) delete rest[k];
+  return rest;
+};
+
+/** What an audit event keeps of a product, as for tools. */
+export const productAuditRecord = (p: ProductModel) => {
+  const { brand: _b, bill: _l, createdAt: _c, updatedAt: _u, version: _v, ...rest } = p.get({ plain: true }) as Record<string, unknown>;
+  return rest;
+};

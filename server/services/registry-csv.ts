@@ -32,7 +32,8 @@ import type { Actor } from '../lib/auth';
 import { AppError } from '../lib/errors';
 import { unstorableText } from '../lib/text-guard';
 import { changesHolding, holdingWords } from './tool-changes';
-import { appendAuditEvents } from './audit-chain';
+import { recordAudit, recordAudits, type AuditEntry } from './audit';
+import { productAuditRecord, toolAuditRecord, toPartDto } from './registry-common';
 import { BillOfPartsModel, BrandModel, FactoryModel, PartModel, ProductModel, ToolModel, ToolRevisionModel } from '../models';
 
 export const MAX_IMPORT_ROWS = 5000;
@@ -396,9 +397,17 @@ type AnyModel = ToolModel | PartModel | ProductModel | BillOfPartsModel;
 
 const entityOf: Record<ImportKind, string> = { tools: 'tool', parts: 'part', products: 'product', bill: 'bill_line' };
 
+/** The record an audit event keeps, the same as the tool and product services write. */
+function auditRecord(kind: ImportKind, row: AnyModel): unknown {
+  if (kind === 'tools') return toolAuditRecord(row as ToolModel);
+  if (kind === 'products') return productAuditRecord(row as ProductModel);
+  if (kind === 'parts') return toPartDto(row as PartModel);
+  return row.get({ plain: true });
+}
+
 async function apply(kind: ImportKind, plan: Planned<AnyModel>[], actor: Actor, transaction: Transaction) {
   const creates = plan.filter((p) => p.op?.kind === 'create').map((p) => (p.op as { values: Record<string, unknown> }).values);
-  const audit: { action: string; entityId: string; before: unknown; after: unknown }[] = [];
+  const audit: AuditEntry[] = [];
   const entity = entityOf[kind];
   for (let i = 0; i < creates.length; i += 500) {
     const chunk = creates.slice(i, i + 500);
@@ -408,23 +417,22 @@ async function apply(kind: ImportKind, plan: Planned<AnyModel>[], actor: Actor, 
         made.map((t, j) => ({ toolId: t.id, number: 1, madeOn: chunk[j]!.madeOn as string, changeRequestId: null, note: 'As built' })),
         { transaction },
       );
-      made.forEach((t) => audit.push({ action: `${entity}.create`, entityId: t.id, before: null, after: t.get({ plain: true }) }));
+      made.forEach((t) => audit.push({ action: `${entity}.create`, entity, entityId: t.id, before: null, after: auditRecord(kind, t) }));
     } else {
       const model = { parts: PartModel, products: ProductModel, bill: BillOfPartsModel }[kind] as unknown as typeof PartModel;
       const made = await model.bulkCreate(chunk as never[], { transaction, returning: true });
-      made.forEach((m) => audit.push({ action: `${entity}.create`, entityId: m.id, before: null, after: m.get({ plain: true }) }));
+      made.forEach((m) => audit.push({ action: `${entity}.create`, entity, entityId: m.id, before: null, after: auditRecord(kind, m) }));
     }
   }
   for (const p of plan) {
     if (p.op?.kind !== 'update') continue;
     const row = p.op.row as ToolModel;
-    const before = row.get({ plain: true });
+    const before = auditRecord(kind, row);
     row.set(p.op.changes as Partial<ToolModel>);
     await row.save({ transaction });
-    audit.push({ action: `${entity}.update`, entityId: row.id, before, after: row.get({ plain: true }) });
+    audit.push({ action: `${entity}.update`, entity, entityId: row.id, before, after: auditRecord(kind, row) });
   }
-  const events = audit.map((a) => ({ actorId: actor.id, actorName: actor.name, action: a.action, entity, entityId: a.entityId, before: a.before, after: a.after }));
-  await appendAuditEvents(transaction, events);
+  await recordAudits(transaction, actor, audit);
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -491,17 +499,13 @@ export async function importRegistryCsv(sequelize: Sequelize, actor: Actor, kind
       throw new AppError('validation_failed', `Nothing was imported: ${problems}. Fix them and import again.`, 400, undefined, { report: r });
     }
     await apply(kind, planned, actor, transaction);
-    await appendAuditEvents(transaction, [
-      {
-        actorId: actor.id,
-        actorName: actor.name,
-        action: 'registry.import',
-        entity: entityOf[kind],
-        entityId: null,
-        before: null,
-        after: { kind, rows: r.totalRows, created: r.created, updated: r.updated, unchanged: r.unchanged },
-      },
-    ]);
+    await recordAudit(transaction, actor, 'registry.import', entityOf[kind], null, null, {
+      kind,
+      rows: r.totalRows,
+      created: r.created,
+      updated: r.updated,
+      unchanged: r.unchanged,
+    });
     return { ...r, applied: true };
   });
 }

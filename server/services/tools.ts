@@ -40,6 +40,7 @@ import {
   toolViewFor,
   type Scope,
   type ToolView,
+  toolAuditRecord,
 } from './registry-common';
 
 // ---------------------------------------------------------------------------------------------
@@ -290,11 +291,7 @@ export async function createTool(sequelize: Sequelize, actor: Actor, input: Crea
 }
 
 /** The stored fields an edit may change, for before/after in the audit trail. */
-const auditable = (t: ToolModel) => {
-  const { version: _v, createdAt: _c, updatedAt: _u, ...rest } = t.get({ plain: true }) as Record<string, unknown>;
-  for (const k of ['brand', 'factory', 'decider', 'parts', 'revisions']) delete rest[k];
-  return rest;
-};
+const auditable = toolAuditRecord;
 
 export async function updateTool(sequelize: Sequelize, actor: Actor, id: string, input: UpdateToolValues): Promise<Tool> {
   await checkBrandAndFactory(input.brandId, input.factoryId);

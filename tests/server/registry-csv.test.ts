@@ -236,6 +236,22 @@ describe('one rule for the API and the CSV import', () => {
     expect(res.body.rows[0]).toMatchObject({ action: 'error', errors: [{ column: 'rated_shots_source', message: 'Say where the rated shots come from' }] });
   });
 
+  it('when a tool is renamed through the CSV import and another through the API, then both audit events keep the same fields', async () => {
+    const { brand, factory, engineer } = await world();
+    const viaApi = await makeTool({ brandId: brand.id, factoryId: factory.id });
+    const viaCsv = await makeTool({ brandId: brand.id, factoryId: factory.id });
+    expect((await request(t.app).patch(`/api/tools/${viaApi.id}`).set(engineer.auth).send({ version: 0, name: 'Renamed by form' })).status).toBe(200);
+    const csv = [TOOL_HEADER, `${viaCsv.code},Renamed by file,${brand.code},${factory.name},${viaCsv.construction},${viaCsv.moldClass},,,${viaCsv.cavityCount},,,,,,,,`].join('\n');
+    const res = await importCsv(engineer.auth, 'tools', csv, false);
+    expect(res.status).toBe(200);
+    expect(res.body.updated).toBe(1);
+    const apiEvent = await AuditEventModel.findOne({ where: { entityId: viaApi.id, action: 'tool.update' } });
+    const csvEvent = await AuditEventModel.findOne({ where: { entityId: viaCsv.id, action: 'tool.update' } });
+    expect(Object.keys(csvEvent!.after as object).sort()).toEqual(Object.keys(apiEvent!.after as object).sort());
+    expect(Object.keys(csvEvent!.before as object).sort()).toEqual(Object.keys(apiEvent!.before as object).sort());
+    expect(csvEvent!.after).toMatchObject({ name: 'Renamed by file' });
+  });
+
   it('when the import lists its columns, then they are the row schema keys and the required ones are those without a default', async () => {
     const { engineer } = await world();
     const res = await importCsv(engineer.auth, 'parts', 'tool_code,part_name,colour\nX-1,Head,Red', true);
