@@ -7,7 +7,7 @@ import { pinoHttp } from 'pino-http';
 import pino from 'pino';
 import type { Sequelize } from 'sequelize';
 import type PgBoss from 'pg-boss';
-import { env } from './env';
+import { env, trustProxyValue } from './env';
 import { crossSiteGuard } from './lib/cross-site';
 import { errorHandler, routeNotFound } from './lib/errors';
 import { apiRouter } from './routes';
@@ -30,7 +30,7 @@ export function createApp(deps: AppDeps) {
   const app = express();
   app.locals.deps = deps;
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', trustProxyValue(env.TRUST_PROXY));
   app.use(
     helmet({
       contentSecurityPolicy: {

@@ -1,57 +1,71 @@
-import { Router, type Response } from 'express';
-import { rateLimit } from 'express-rate-limit';
-import { setPasswordInput, signInInput } from '../../shared/schemas/users';
+import { Router, type Request, type Response } from 'express';
+import { changePasswordInput, setPasswordInput, signInInput } from '../../shared/schemas/users';
 import type { AppDeps } from '../app';
 import { env } from '../env';
-import { SESSION_COOKIE } from '../lib/auth';
+import { SESSION_COOKIE, actorOf, requireAuth, tokenFrom } from '../lib/auth';
 import { AppError } from '../lib/errors';
+import { ttlSeconds, verifySessionToken } from '../lib/tokens';
 import * as auth from '../services/auth';
+import { readThrottle, recordFailure } from '../services/throttles';
 
-const tooMany = () =>
-  new AppError('rate_limited', 'Too many sign-in attempts. Wait 15 minutes and try again, or ask your administrator.', 429);
-
-function setSessionCookie(res: Response, token: string) {
+export function setSessionCookie(res: Response, token: string) {
   res.cookie(SESSION_COOKIE, token, {
     httpOnly: true,
     sameSite: 'lax',
     secure: env.PUBLIC_URL.startsWith('https:'),
     path: '/',
-    maxAge: 12 * 3600 * 1000,
+    maxAge: ttlSeconds(env.TOKEN_TTL) * 1000,
   });
 }
 
+const clientAddress = (req: Request) => req.ip ?? req.socket.remoteAddress ?? 'unknown';
+
 export function authRouter(deps: AppDeps) {
   const r = Router();
-  const window = 15 * 60_000;
-  const perIp = rateLimit({
-    windowMs: window,
-    limit: deps.signInLimitPerIp ?? env.SIGN_IN_LIMIT_PER_IP,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, _res, next) => next(tooMany()),
-  });
-  const perEmail = rateLimit({
-    windowMs: window,
-    limit: deps.signInLimitPerEmail ?? env.SIGN_IN_LIMIT_PER_EMAIL,
-    standardHeaders: false,
-    legacyHeaders: false,
-    keyGenerator: (req) => `email:${String((req.body as { email?: unknown })?.email ?? '').trim().toLowerCase()}`,
-    handler: (_req, _res, next) => next(tooMany()),
+  const policy = (): auth.SignInPolicy => ({
+    sequelize: deps.sequelize,
+    boss: deps.boss,
+    perAccount: deps.signInLimitPerEmail ?? env.SIGN_IN_LIMIT_PER_EMAIL,
+    perAddress: deps.signInLimitPerIp ?? env.SIGN_IN_LIMIT_PER_IP,
+    delaySeconds: deps.signInDelaySeconds ?? 30,
+    lockAfter: deps.signInLockAfter ?? env.SIGN_IN_LOCK_AFTER,
   });
 
-  r.post('/sign-in', perIp, perEmail, async (req, res) => {
-    const result = await auth.signIn(signInInput.parse(req.body));
+  r.post('/sign-in', async (req, res) => {
+    const result = await auth.signIn(signInInput.parse(req.body), clientAddress(req), policy());
     setSessionCookie(res, result.token);
     res.json(result);
   });
 
-  r.post('/sign-out', (_req, res) => {
+  // Ends the session on the server too: the token stops working everywhere at once.
+  r.post('/sign-out', async (req, res) => {
+    const token = tokenFrom(req);
+    if (token) {
+      const claims = await verifySessionToken(token).catch(() => null);
+      if (claims) await auth.signOut(claims.sessionId);
+    }
     res.clearCookie(SESSION_COOKIE, { path: '/' });
     res.status(204).end();
   });
 
-  r.post('/set-password', perIp, async (req, res) => {
-    const result = await auth.setPasswordFromInvitation(setPasswordInput.parse(req.body));
+  // Guessing invitation links counts against the address like wrong passwords do.
+  r.post('/set-password', async (req, res) => {
+    const ipKey = `set-password-ip:${clientAddress(req)}`;
+    const limit = deps.signInLimitPerIp ?? env.SIGN_IN_LIMIT_PER_IP;
+    const seen = await readThrottle(deps.sequelize, ipKey, 15 * 60_000);
+    if (seen && seen.failures >= limit) throw new AppError('rate_limited', 'Too many tries from your network. Wait 15 minutes and try again, or ask your administrator.', 429);
+    const input = setPasswordInput.parse(req.body);
+    const result = await auth.setPasswordFromInvitation(input, deps.sequelize).catch(async (err: unknown) => {
+      if (err instanceof AppError && err.status === 400) await recordFailure(deps.sequelize, ipKey, 15 * 60_000);
+      throw err;
+    });
+    setSessionCookie(res, result.token);
+    res.json(result);
+  });
+
+  // One's own password: every session of the account ends, this device gets a new one.
+  r.post('/change-password', requireAuth, async (req, res) => {
+    const result = await auth.changePassword(actorOf(res).id, changePasswordInput.parse(req.body));
     setSessionCookie(res, result.token);
     res.json(result);
   });

@@ -3,6 +3,7 @@
 // sign-off in the hash chain, the new state and due date, the effects on the tool, the audit event
 // and the e-mail to whoever acts next. Also the inbox (what waits for me) and overdue reminders.
 import type PgBoss from 'pg-boss';
+import { clearThrottle, readThrottle, recordFailure } from './throttles';
 import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import {
   acceptancesAfter,
@@ -44,6 +45,8 @@ import {
   type ChangeItemModel,
 } from '../models';
 import { recordAudit } from './audit';
+import { recordCut } from './cut-record';
+import { assertGatePassed, loadGateFacts } from './request-gates';
 import { staleVersion } from './registry-common';
 import { actorContext, visibilitySql } from './request-access';
 import { accessFacts, buildDetail, computedFields, findVisibleRequest, impactOf, loadImpactContext, loadItems, toSummary } from './request-views';
@@ -85,38 +88,30 @@ export const idempotencyFingerprint = (id: string, input: TakeActionInput) => {
   return sha256Hex(canonicalJson({ requestId: id, ...rest }));
 };
 
-/** The latest calendar date anywhere (UTC+14), so a cut dated "today" in any zone is accepted. */
-const latestToday = (at: Date) => new Date(at.getTime() + 14 * 3_600_000).toISOString().slice(0, 10);
 
 async function passwordMatches(userId: string, password: string, transaction: Transaction) {
   const user = await UserModel.findByPk(userId, { attributes: ['id', 'passwordHash', 'active'], transaction });
   return !!user && user.active && (await verifyPassword(user.passwordHash, password));
 }
 
-// Wrong passwords at signing, per user (in this process): after 5 in 15 minutes the signer waits,
-// so a session left open cannot be used to guess the password that signs irreversible changes.
+// Wrong passwords at signing, per user (in PostgreSQL, so every server counts them): after 5 in 15
+// minutes the signer waits, so a session left open cannot be used to guess the signing password.
 export const SIGNING_PASSWORD_LIMIT = { failures: 5, windowMs: 15 * 60_000 } as const;
-const passwordFailures = new Map<string, number[]>();
-
-function recentPasswordFailures(userId: string, now: number) {
-  const recent = (passwordFailures.get(userId) ?? []).filter((t) => now - t < SIGNING_PASSWORD_LIMIT.windowMs);
-  if (recent.length) passwordFailures.set(userId, recent);
-  else passwordFailures.delete(userId);
-  return recent;
-}
 
 async function checkSigningPassword(actor: Actor, password: string, transaction: Transaction) {
-  const now = Date.now();
-  const recent = recentPasswordFailures(actor.id, now);
-  if (recent.length >= SIGNING_PASSWORD_LIMIT.failures) {
-    const waitMin = Math.ceil((recent[0]! + SIGNING_PASSWORD_LIMIT.windowMs - now) / 60_000);
+  // Counted outside the action's transaction: a refused signature rolls that back.
+  const db = UserModel.sequelize!;
+  const key = `signing:${actor.id}`;
+  const seen = await readThrottle(db, key, SIGNING_PASSWORD_LIMIT.windowMs);
+  if (seen && seen.failures >= SIGNING_PASSWORD_LIMIT.failures) {
+    const waitMin = Math.max(1, Math.ceil((seen.windowStartedAt.getTime() + SIGNING_PASSWORD_LIMIT.windowMs - Date.now()) / 60_000));
     throw new AppError('rate_limited', `Nothing was signed: too many wrong passwords. Try again in ${waitMin} minute${waitMin === 1 ? '' : 's'}.`, 429);
   }
   if (await passwordMatches(actor.id, password, transaction)) {
-    passwordFailures.delete(actor.id);
+    if (seen) await clearThrottle(db, key);
     return;
   }
-  passwordFailures.set(actor.id, [...recent, now]);
+  await recordFailure(db, key, SIGNING_PASSWORD_LIMIT.windowMs);
   throw invalid('Nothing was signed: that is not your password. Enter it again to sign a change that cannot be undone.', {
     password: ['The password is not right'],
   });
@@ -135,6 +130,7 @@ function progressSnapshot(r: ChangeRequestModel) {
     endedProductIds: r.endedProductIds,
     cutReport: r.cutReport ?? null,
     retestNote: r.retestNote ?? null,
+    cutSheetReceivedAt: r.cutSheetReceivedAt?.toISOString() ?? null,
   };
 }
 
@@ -216,6 +212,8 @@ export async function applyAction(
   }
   const facts = factsFromImpact(tool.code, impact, r.retestRequired);
   const need = needsFor(input.action, facts);
+  // The gate of the action (shared/domain/gates.ts): nothing is signed blind.
+  if (lifecycle.actions[input.action].gate) assertGatePassed(input.action, (await loadGateFacts(r, items, impact, transaction)).facts);
 
   const errors: Record<string, string[]> = { ...(checkSubmission(input.action, input, facts) ?? {}) };
   if (input.action === 'submit' && items.length === 0) errors.items = ['Add at least one cut item before you submit'];
@@ -225,12 +223,10 @@ export async function applyAction(
       errors.confirmedProductIds = ['Some ticked products are not ended by this change: reload the request and tick the products it lists'];
     }
   }
-  if (input.action === 'record_cut') {
-    if (!input.cut) errors.cut = ['Enter the actual cost and the date of the cut'];
-    else if (input.cut.cutOn > latestToday(at)) errors['cut.cutOn'] = ['The cut cannot be dated in the future'];
-  }
   if (Object.keys(errors).length) throw invalid(fieldErrorMessage(errors), errors);
   if (need.password) await checkSigningPassword(actor, input.password ?? '', transaction);
+  // Record the cut: receipt first, then the report (server/services/cut-record.ts).
+  const cut = lifecycle.actions[input.action].needsReceipt ? await recordCut(transaction, actor, r, items, input.cut, at) : null;
 
   const accepted = acceptedRolesOf(r);
   const to = nextState(input.action, from, { target: input.target, role: actor.role, alreadyAccepted: accepted });
@@ -243,10 +239,8 @@ export async function applyAction(
     r.stageEnteredAt = at;
     r.stageDueAt = stageDueAt(to, at, await stageDueDays(transaction));
   }
-  const cut = input.action === 'record_cut' && input.cut
-    ? { actualCostCents: input.cut.actualCostCents, cutOn: input.cut.cutOn, note: input.cut.note ?? '', recordedBy: { id: actor.id, name: actor.name }, recordedAt: at.toISOString() }
-    : null;
   if (cut) r.cutReport = cut;
+  if (lifecycle.actions[input.action].receipt) r.cutSheetReceivedAt = at;
   if (input.action === 'accept_samples' && input.retestNote) r.retestNote = input.retestNote;
   const content = signedContent(r, items, tool);
   r.changed('updatedAt', true);

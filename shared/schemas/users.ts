@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { languages } from '../i18n';
 
 export const roles = ['designer', 'engineer', 'brand_lead', 'toolmaker', 'admin'] as const;
 export const roleSchema = z.enum(roles);
@@ -23,6 +24,8 @@ export type SessionUser = z.infer<typeof sessionUserSchema>;
 export const userSchema = sessionUserSchema.extend({
   active: z.boolean(),
   timeZone: z.string(),
+  /** Screens, mail and error messages: 'en' or 'zh-Hans'. */
+  language: z.enum(languages),
   factoryId: z.string().uuid().nullable(),
   brandIds: z.array(z.string().uuid()),
   invitationPending: z.boolean(),
@@ -35,6 +38,9 @@ export const meSchema = userSchema.extend({
   brandNames: z.array(z.string()),
 });
 export type Me = z.infer<typeof meSchema>;
+
+export const setLanguageInput = z.object({ language: z.enum(languages, { message: 'Pick English or 简体中文' }) });
+export type SetLanguageInput = z.infer<typeof setLanguageInput>;
 
 export const signInInput = z.object({
   email: z.string().trim().toLowerCase().pipe(z.email({ message: 'Enter a valid e-mail address' }).max(320)),
@@ -52,6 +58,10 @@ export const passwordRule = z
 
 export const setPasswordInput = z.object({ token: z.string().min(10), password: passwordRule });
 export type SetPasswordInput = z.infer<typeof setPasswordInput>;
+
+/** Changing one's own password ends every other session of that account. */
+export const changePasswordInput = z.object({ currentPassword: z.string().min(1, 'Enter your current password').max(200), newPassword: passwordRule });
+export type ChangePasswordInput = z.infer<typeof changePasswordInput>;
 
 const userFields = {
   email: z.string().trim().toLowerCase().pipe(z.email({ message: 'Enter a valid e-mail address' }).max(320)),
