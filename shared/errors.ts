@@ -9,6 +9,7 @@ export const errorCodes = [
   'conflict',
   'stale_version',
   'wrong_state',
+  'gate_not_passed',
   'idempotency_mismatch',
   'payload_too_large',
   'unsupported_media_type',

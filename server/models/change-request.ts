@@ -24,6 +24,8 @@ export class ChangeRequestModel extends Model<InferAttributes<ChangeRequestModel
   declare title: string;
   declare reason: CreationOptional<string>;
   declare derivativeProductId: ForeignKey<ProductModel['id']> | null;
+  /** Why the change is for no product (null or empty: not said). */
+  declare noDerivativeReason: CreationOptional<string | null>;
   declare status: CreationOptional<RequestState>;
   declare targetDate: string | null;
   declare submitterId: ForeignKey<UserModel['id']>;
@@ -63,6 +65,7 @@ export class ChangeRequestModel extends Model<InferAttributes<ChangeRequestModel
         derivativeProductId: { type: DataTypes.UUID, allowNull: true },
         status: { type: DataTypes.STRING(32), allowNull: false, defaultValue: 'draft' },
         targetDate: { type: DataTypes.DATEONLY, allowNull: true },
+        noDerivativeReason: { type: DataTypes.TEXT, allowNull: true },
         submitterId: { type: DataTypes.UUID, allowNull: false },
         movedProductIds: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         irreversible: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },

@@ -59,11 +59,24 @@ export interface SeedStep {
 }
 
 export interface SeedRequest {
+export interface SeedEstimate {
+  currency: string;
+  modificationCostCents: number;
+  leadDays: number;
+  trialRoundsExpected?: number;
+  newInsertCents?: number;
+  duplicateToolCents?: number;
+}
+
   toolCode: string;
   title: string;
   reason: string;
   derivativeSku: string | null;
   targetInDays: number | null;
+  /** Why the change is for no product (a request without a derivative past its draft says why). */
+  noDerivativeReason?: string;
+  /** The engineer's estimate and its currency, entered before the review is signed. */
+  estimate?: SeedEstimate;
   status: RequestState;
   submitter: string;
   items: SeedItem[];
@@ -254,6 +267,7 @@ export async function seedRequests(transaction: Transaction, org: Org, registry:
         derivativeProductId: spec.derivativeSku ? await productId(spec.derivativeSku, transaction) : null,
         newDerivative: null,
         targetDate: spec.targetInDays === null ? null : addDays(spec.targetInDays),
+        noDerivativeReason: spec.noDerivativeReason ?? null,
         items,
         movedProductIds: await productIds(spec.movedSkus ?? [], transaction),
       },

@@ -16,7 +16,8 @@ import type { Actor } from '../lib/auth';
 import { ChangeRequestModel, ToolModel } from '../models';
 import { applyAction } from '../services/workflow';
 import { DEMO_PASSWORD } from './organisation';
-import type { SeedRequest, SeedStep } from './requests';
+import { EMPTY_PLAN } from '../../shared/domain/request-numbers';
+import type { SeedEstimate, SeedRequest, SeedStep } from './requests';
 
 const DESIGNER = 'designer@kestrelbay.example';
 const ENGINEER = 'engineer@kestrelbay.example';
@@ -40,6 +41,8 @@ export const workflowDemoRequests: SeedRequest[] = [
       {
         part: 'Wing pair',
         effect: 'surface_only',
+    noDerivativeReason: 'The Osprey itself moves to the new revision: a refresh of the figure in line, not a new product.',
+    estimate: { currency: 'USD', modificationCostCents: 240_000, leadDays: 15, trialRoundsExpected: 1 },
         method: 'texture',
         size: '0.15',
         unit: 'mm',
@@ -66,6 +69,8 @@ export const workflowDemoRequests: SeedRequest[] = [
       {
         part: 'Display stand',
         effect: 'insert_swapped',
+    noDerivativeReason: 'The anniversary wave re-uses the figures in line; only the stand changes, on its own insert.',
+    estimate: { currency: 'USD', modificationCostCents: 310_000, leadDays: 20, trialRoundsExpected: 1 },
         method: 'new_insert',
         size: '62',
         unit: 'mm',
@@ -92,6 +97,8 @@ export const workflowDemoRequests: SeedRequest[] = [
       {
         part: 'Roll cage',
         effect: 'gains_plastic',
+    noDerivativeReason: 'A fix to the Dune Buggy in line, which moves to the new revision.',
+    estimate: { currency: 'USD', modificationCostCents: 180_000, leadDays: 12, trialRoundsExpected: 1 },
         method: 'cut',
         size: '0.5',
         unit: 'mm',
@@ -139,6 +146,8 @@ export const workflowDemoRequests: SeedRequest[] = [
     history: [
       { by: DESIGNER, action: 'submit', daysAgo: 58 },
       { by: ENGINEER, action: 'sign_review', daysAgo: 55 },
+    noDerivativeReason: 'A fix to the chassis of three vehicles in line, which all move to the new revision.',
+    estimate: { currency: 'USD', modificationCostCents: 95_000, leadDays: 10, trialRoundsExpected: 1 },
       { by: RACERS_LEAD, action: 'approve', daysAgo: 54 },
       { by: PEARL_DELTA_TOOLMAKER, action: 'record_cut', daysAgo: 40, cut: { actualCostCents: 94_000, note: 'Rib channel milled; no change to ejection.' } },
       { by: ENGINEER, action: 'accept_samples', daysAgo: 37, comment: 'Flex test passed; dimensions within the drawing.' },
@@ -181,6 +190,8 @@ export const workflowDemoRequests: SeedRequest[] = [
     title: 'Taller rear spoiler for the Turbo',
     reason: 'A taller spoiler for the Turbo sample run.',
     derivativeSku: 'MR-2101',
+    noDerivativeReason: 'The Night Heron is not in the product registry yet: it is added once the crest is agreed.',
+    estimate: { currency: 'USD', modificationCostCents: 420_000, leadDays: 25, trialRoundsExpected: 2 },
     targetInDays: null,
     status: 'withdrawn',
     submitter: DESIGNER,
@@ -235,3 +246,13 @@ async function inputFor(transaction: Transaction, id: string, step: SeedStep, at
   }
   return input;
 }
+    if (step.action === 'sign_review' && spec.estimate) await enterEstimate(transaction, requestId, spec.estimate);
+/** The engineer's estimate and its currency, entered during the review (the review's gate needs them). */
+async function enterEstimate(transaction: Transaction, id: string, estimate: SeedEstimate) {
+  const r = (await ChangeRequestModel.findByPk(id, { transaction }))!;
+  const { currency, ...e } = estimate;
+  r.estimate = { trialRoundsExpected: null, newInsertCents: null, duplicateToolCents: null, ...e };
+  r.numbersInputs = { plan: { ...EMPTY_PLAN, currency }, dimension: null, clamp: null };
+  await r.save({ transaction });
+}
+

@@ -33,6 +33,7 @@ import { canSeeRequest, permissionsFor, type RequestAccessFacts } from './reques
 import { iso } from './registry-common';
 import { loadSignOffs } from './sign-off-chain';
 import { contextAsSigned, workflowView } from './workflow-view';
+import { gatesFor, loadGateFacts, valueAtRiskOf } from './request-gates';
 
 // ---------------------------------------------------------------------------------------------
 // Impact context: the tool, its parts, the products made from it and their bill lines on it
@@ -221,11 +222,13 @@ export async function buildDetail(actor: Actor, r: ChangeRequestModel, transacti
   const permissions = permissionsFor(actor, accessFacts(r));
   const view = workflowView({ r, actions: permissions.actions, impact, retestRequired: retestRequired(items), items, tool: t, signOffs: await loadSignOffs(r.id, transaction) });
   return {
+  const gateContext = await loadGateFacts(r, items, impact, transaction);
     ...toSummary(r),
     reason: r.reason,
     targetDate: r.targetDate,
     derivativeProduct: r.derivativeProduct ? { id: r.derivativeProduct.id, sku: r.derivativeProduct.sku, name: r.derivativeProduct.name } : null,
     tool: {
+    noDerivativeReason: r.noDerivativeReason ?? null,
       id: t.id,
       code: t.code,
       name: t.name,
@@ -245,6 +248,9 @@ export async function buildDetail(actor: Actor, r: ChangeRequestModel, transacti
     signOffs: view.signOffs,
     workflow: view.workflow,
   };
+    gates: gatesFor(r, gateContext.facts),
+    // Prices and margins stay with the brand and engineering.
+    valueAtRisk: actor.role === 'toolmaker' ? null : valueAtRiskOf(gateContext),
 }
 
 export async function detailById(actor: Actor, id: string, transaction?: Transaction) {
@@ -261,6 +267,7 @@ export function auditSnapshot(r: ChangeRequestModel, items: readonly ChangeItemM
     status: r.status as RequestState,
     derivativeProductId: r.derivativeProductId,
     targetDate: r.targetDate,
+    noDerivativeReason: r.noDerivativeReason ?? null,
     submitterId: r.submitterId,
     movedProductIds: r.movedProductIds,
     irreversible: r.irreversible,

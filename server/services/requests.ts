@@ -161,6 +161,7 @@ export async function insertRequest(actor: Actor, input: CreateRequestValues, tr
       title: input.title,
       reason: input.reason,
       derivativeProductId,
+      noDerivativeReason: derivativeProductId ? null : input.noDerivativeReason,
       targetDate: input.targetDate,
       submitterId: actor.id,
       movedProductIds: [...input.movedProductIds],
@@ -189,6 +190,7 @@ const fieldLabels: Record<EditableRequestField, string> = {
   reason: 'reason',
   derivativeProductId: 'derivative product',
   newDerivative: 'derivative product',
+  noDerivativeReason: 'reason for having no product',
   targetDate: 'target date',
   items: 'cut items',
   movedProductIds: 'moved products',
@@ -202,6 +204,7 @@ function changedFields(r: ChangeRequestModel, input: UpdateRequestValues): Edita
   if (input.targetDate !== undefined && input.targetDate !== r.targetDate) out.push('targetDate');
   if (input.derivativeProductId !== undefined && input.derivativeProductId !== r.derivativeProductId) out.push('derivativeProductId');
   if (input.newDerivative) out.push('newDerivative');
+  if (input.noDerivativeReason !== undefined && input.noDerivativeReason !== (r.noDerivativeReason ?? null)) out.push('noDerivativeReason');
   if (input.items !== undefined) out.push('items');
   if (input.movedProductIds !== undefined) out.push('movedProductIds');
   return out;
@@ -239,6 +242,9 @@ export async function updateRequest(sequelize: Sequelize, actor: Actor, id: stri
       if (input.derivativeProductId) await checkDerivative(input.derivativeProductId, transaction);
       r.derivativeProductId = input.derivativeProductId;
     }
+    if (input.noDerivativeReason !== undefined) r.noDerivativeReason = input.noDerivativeReason;
+    // A request for a product needs no reason for having none.
+    if (r.derivativeProductId) r.noDerivativeReason = null;
     if (input.movedProductIds !== undefined) r.movedProductIds = [...input.movedProductIds];
     if (input.items !== undefined) await writeItems(r.id, input.items, transaction);
     const items = await storeComputed(r, context, transaction);

@@ -1,4 +1,5 @@
 import { roleLabels, type Role } from '../schemas/users';
+import type { GateId } from './gates';
 
 // The change-request lifecycle (DESIGN section 4), as ONE table used by the client and the server.
 //
@@ -136,6 +137,8 @@ export interface ActionRule {
   collectsAcceptance?: boolean;
   /** rework: forget earlier acceptances of the samples. */
   clearsAcceptances?: boolean;
+  /** What must be on the request before the action may be taken (gates.ts). */
+  gate?: GateId;
 }
 
 const optional = (over: Partial<ActionNeeds> = {}): ActionNeeds => ({
@@ -237,6 +240,7 @@ export const lifecycle: { states: Record<RequestState, StateRule>; actions: Reco
       },
       needs: optional(),
       awaited: true,
+      gate: 'review_ready',
     },
     return_to_draft: {
       label: 'Return to designer',
@@ -266,6 +270,7 @@ export const lifecycle: { states: Record<RequestState, StateRule>; actions: Reco
       },
       needs: optional({ password: 'when_irreversible', tickEndedProducts: 'when_irreversible', typeToolCode: 'when_irreversible' }),
       awaited: true,
+      gate: 'approval_ready',
     },
     return: {
       label: 'Send back',

@@ -2,6 +2,8 @@ import { z } from 'zod';
 import { boundedDate } from './dates';
 import type { ImpactResult, BillOfPartsLine, ImpactPart, ImpactProduct, ImpactTool } from '../domain/impact';
 import type { SafetyReview } from '../domain/safety';
+import type { GateGap } from '../domain/gates';
+import type { ValueAtRiskResult } from '../domain/value-at-risk';
 import type { SteelDirection } from '../domain/steel-direction';
 import { requestActions, requestStates } from '../domain/lifecycle';
 import { checkItemConsistency } from '../domain/steel-direction';
@@ -53,6 +55,12 @@ const itemList = z
     });
   });
 
+const noDerivativeReasonField = z
+  .string()
+  .trim()
+  .max(2000, { message: 'Keep this under 2000 characters' })
+  .transform((v) => (v === '' ? null : v));
+
 const reasonField = z.string().trim().max(4000, { message: 'Keep the reason under 4000 characters' });
 const movedField = z
   .array(z.uuid())
@@ -66,6 +74,8 @@ const requestFields = {
   derivativeProductId: z.uuid().nullable().default(null),
   /** Create the derivative product inline: it joins the tool's brand as in_line with 0 planned units. */
   newDerivative: newDerivativeInput.nullable().default(null),
+  /** When the change is for no product: why (a fix to the tool, a texture refresh). */
+  noDerivativeReason: noDerivativeReasonField.nullable().default(null),
   targetDate: isoDate.nullable().default(null),
   items: itemList.default([]),
   movedProductIds: movedField.default([]),
@@ -92,6 +102,7 @@ export const updateRequestInput = z
     reason: reasonField,
     derivativeProductId: z.uuid().nullable(),
     newDerivative: newDerivativeInput.nullable(),
+    noDerivativeReason: noDerivativeReasonField.nullable(),
     targetDate: isoDate.nullable(),
     items: itemList,
     movedProductIds: movedField,
@@ -139,7 +150,7 @@ export const requestListResponseSchema = z.object({
 export type RequestListResponse = z.infer<typeof requestListResponseSchema>;
 
 /** The fields of a request that an edit can change (updateRequestInput without `version`). */
-export const editableRequestFields = ['title', 'reason', 'derivativeProductId', 'newDerivative', 'targetDate', 'items', 'movedProductIds'] as const;
+export const editableRequestFields = ['title', 'reason', 'derivativeProductId', 'newDerivative', 'noDerivativeReason', 'targetDate', 'items', 'movedProductIds'] as const;
 export type EditableRequestField = (typeof editableRequestFields)[number];
 
 export const attachmentKinds = ['before', 'after', 'sample', 'other'] as const;
@@ -191,6 +202,8 @@ export const requestDetailSchema = requestSummarySchema.extend({
   reason: z.string(),
   targetDate: z.string().nullable(),
   derivativeProduct: z.object({ id: z.uuid(), sku: z.string(), name: z.string() }).nullable(),
+  /** Why the change is for no product (null: not said). */
+  noDerivativeReason: z.string().nullable(),
   tool: z.object({
     id: z.uuid(),
     code: z.string(),
@@ -224,6 +237,10 @@ export const requestDetailSchema = requestSummarySchema.extend({
   signOffs: z.array(signOffSchema).optional(),
   /** Due date, who it waits for, what each of my actions needs, the irreversible guard. */
   workflow: workflowInfoSchema.optional(),
+  /** What is still missing before each gated action the request's state allows (gates.ts). */
+  gates: z.partialRecord(z.enum(requestActions), z.array(z.custom<GateGap>((v) => typeof v === 'object' && v !== null))).optional(),
+  /** What the products the change ends are worth beside the ways to keep them (null until every figure exists). */
+  valueAtRisk: z.custom<ValueAtRiskResult>((v) => typeof v === 'object' && v !== null).nullable().optional(),
 });
 export type RequestDetail = z.infer<typeof requestDetailSchema>;
 

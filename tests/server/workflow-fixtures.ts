@@ -11,8 +11,26 @@ export type SceneUser = Scene['users'][keyof Scene['users']];
 
 export const CUT = { actualCostCents: 412_500, cutOn: '2026-11-20', note: 'Ridge cut in both head cavities; EDM finish.' };
 
+/** An estimate that passes the review's gate (the costs of both ways to keep ended products too). */
+export const READY_ESTIMATE = { modificationCostCents: 412_500, leadDays: 21, trialRoundsExpected: 1, newInsertCents: 950_000, duplicateToolCents: 1_400_000 };
+
+/**
+ * Fills in, as the engineer and designer would, what the review's gate needs and the request lacks:
+ * the estimate, its currency, and why there is no product when none is chosen.
+ */
+export async function fillForReview(id: string) {
+  const r = (await ChangeRequestModel.findByPk(id))!;
+  if (r.status !== 'engineering_review') return;
+  if (r.estimate === null) r.estimate = { ...READY_ESTIMATE };
+  const plan = (r.numbersInputs as { plan?: Record<string, unknown> } | null)?.plan;
+  if (!plan?.currency) r.numbersInputs = { ...(r.numbersInputs ?? {}), plan: { ...(plan ?? {}), currency: 'USD' } };
+  if (!r.derivativeProductId && !r.noDerivativeReason) r.noDerivativeReason = 'A fix to the figures in line; no new product.';
+  if (r.changed()) await r.save();
+}
+
 /** What each action needs beyond its name, for a request that passes every check. */
-export async function bodyFor(id: string, action: RequestAction, extra: Record<string, unknown> = {}) {
+export async function bodyFor(id: string, action: RequestAction, extraIn: Record<string, unknown> = {}) {
+  const { skipGateFill: _skip, ...extra } = extraIn;
   const r = (await ChangeRequestModel.findByPk(id, { include: [{ association: 'tool', attributes: ['code'] }] }))!;
   const body: Record<string, unknown> = { action, version: r.version };
   if (['return_to_draft', 'return', 'decline', 'rework', 'withdraw'].includes(action)) body.comment = `Because ${action}`;
@@ -28,6 +46,9 @@ export async function bodyFor(id: string, action: RequestAction, extra: Record<s
 
 export function actWith(app: App) {
   return async function act(user: SceneUser, id: string, action: RequestAction, extra: Record<string, unknown> = {}, key?: string) {
+    // The engineer fills in what the review's gate needs first (`skipGateFill: true` sends the
+    // action on the request as it is, to test the gate itself).
+    if (action === 'sign_review' && user.user.role === 'engineer' && !extra.skipGateFill) await fillForReview(id);
     const req = request(app).post(`/api/requests/${id}/actions`).set(user.auth);
     if (key) req.set('Idempotency-Key', key);
     return req.send(await bodyFor(id, action, extra));

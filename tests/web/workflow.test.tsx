@@ -84,6 +84,7 @@ function detail(over: Partial<RequestDetail> = {}): RequestDetail {
     reason: '',
     targetDate: null,
     derivativeProduct: null,
+    noDerivativeReason: null,
     items: [],
     movedProductIds: [],
     attachments: [],
