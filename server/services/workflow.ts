@@ -99,16 +99,17 @@ async function passwordMatches(userId: string, password: string, transaction: Tr
 export const SIGNING_PASSWORD_LIMIT = { failures: 5, windowMs: 15 * 60_000 } as const;
 
 async function checkSigningPassword(actor: Actor, password: string, transaction: Transaction) {
-  // Counted outside the action's transaction: a refused signature rolls that back.
+  // Read in the action's transaction (one connection each); a failure is counted outside it,
+  // since a refused signature rolls the transaction back.
   const db = UserModel.sequelize!;
   const key = `signing:${actor.id}`;
-  const seen = await readThrottle(db, key, SIGNING_PASSWORD_LIMIT.windowMs);
+  const seen = await readThrottle(db, key, SIGNING_PASSWORD_LIMIT.windowMs, transaction);
   if (seen && seen.failures >= SIGNING_PASSWORD_LIMIT.failures) {
     const waitMin = Math.max(1, Math.ceil((seen.windowStartedAt.getTime() + SIGNING_PASSWORD_LIMIT.windowMs - Date.now()) / 60_000));
     throw new AppError('rate_limited', `Nothing was signed: too many wrong passwords. Try again in ${waitMin} minute${waitMin === 1 ? '' : 's'}.`, 429);
   }
   if (await passwordMatches(actor.id, password, transaction)) {
-    if (seen) await clearThrottle(db, key);
+    if (seen) await clearThrottle(db, key, transaction);
     return;
   }
   await recordFailure(db, key, SIGNING_PASSWORD_LIMIT.windowMs);
