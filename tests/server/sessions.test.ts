@@ -134,7 +134,7 @@ describe('accounts not yet active', () => {
 describe('settings', () => {
   const root = path.resolve(__dirname, '..', '..');
   const start = (extra: Record<string, string>) =>
-    spawnSync(process.execPath, ['--import', 'tsx', '-e', "require('./server/env')"], { cwd: root, env: { PATH: process.env.PATH, ...extra } as NodeJS.ProcessEnv, encoding: 'utf8' });
+    spawnSync(process.execPath, ['--import', 'tsx', '-e', "require('./server/env')"], { cwd: root, env: { ...extra, PATH: process.env.PATH ?? "" } as unknown as NodeJS.ProcessEnv, encoding: 'utf8' });
 
   it('when production runs with the built-in secret, then the server refuses to start and names JWT_SECRET', () => {
     const r = start({ NODE_ENV: 'production' });
