@@ -41,9 +41,9 @@ export async function startServer(opts: { port?: number; databaseUrl?: string; j
 
 if (require.main === module) {
   startServer().then(
-    ({ stop }) => {
+    (server) => {
       console.log(`Toolgate API on http://localhost:${env.PORT}`);
-      const bye = () => void stop().then(() => process.exit(0));
+      const bye = () => void server.stop().then(() => process.exit(0));
       process.once('SIGINT', bye);
       process.once('SIGTERM', bye);
     },

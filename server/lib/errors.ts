@@ -8,6 +8,7 @@ import {
 } from 'sequelize';
 import { ZodError, z } from 'zod';
 import type { ErrorCode } from '../../shared/errors';
+import { localizeError } from './localize-error';
 
 export class AppError extends Error {
   constructor(
@@ -45,7 +46,8 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   };
   if (err instanceof AppError) {
     status = err.status;
-    body = { code: err.code, message: err.message, ...(err.fieldErrors ? { fieldErrors: err.fieldErrors } : {}), ...err.extra };
+    const { i18n: _i18n, ...extra } = err.extra ?? {};
+    body = { code: err.code, message: err.message, ...(err.fieldErrors ? { fieldErrors: err.fieldErrors } : {}), ...extra };
   } else if (err instanceof ZodError) {
     status = 400;
     const fieldErrors = zodFieldErrors(err);
@@ -89,6 +91,9 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     body = { code: 'validation_failed', message: String(err.message ?? 'Bad request') };
   }
   if (status >= 500) req.log?.error({ err }, 'request failed');
+  // A reader of another language gets the message in it (the code stays the same).
+  const language = (res.locals.user as { language?: string } | undefined)?.language;
+  if (language && language !== 'en') body = localizeError(body, language, err instanceof AppError ? err.extra?.i18n : undefined);
   res.status(status).json({ error: body });
 };
 

@@ -39,6 +39,8 @@ export class ChangeRequestModel extends Model<InferAttributes<ChangeRequestModel
   declare estimate: CreationOptional<Record<string, unknown> | null>;
   declare numbersInputs: CreationOptional<Record<string, unknown> | null>;
   declare cutReport: CreationOptional<Record<string, unknown> | null>;
+  /** When a toolmaker of the tool's factory confirmed receipt of the cut sheet (the sign-off has the signature). */
+  declare cutSheetReceivedAt: CreationOptional<Date | null>;
   declare acceptedByRoles: CreationOptional<string[]>;
   declare stageEnteredAt: CreationOptional<Date>;
   declare stageDueAt: CreationOptional<Date | null>;
@@ -63,9 +65,9 @@ export class ChangeRequestModel extends Model<InferAttributes<ChangeRequestModel
         title: { type: DataTypes.STRING(160), allowNull: false },
         reason: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         derivativeProductId: { type: DataTypes.UUID, allowNull: true },
+        noDerivativeReason: { type: DataTypes.TEXT, allowNull: true },
         status: { type: DataTypes.STRING(32), allowNull: false, defaultValue: 'draft' },
         targetDate: { type: DataTypes.DATEONLY, allowNull: true },
-        noDerivativeReason: { type: DataTypes.TEXT, allowNull: true },
         submitterId: { type: DataTypes.UUID, allowNull: false },
         movedProductIds: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         irreversible: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
@@ -75,6 +77,7 @@ export class ChangeRequestModel extends Model<InferAttributes<ChangeRequestModel
         estimate: { type: DataTypes.JSONB, allowNull: true },
         numbersInputs: { type: DataTypes.JSONB, allowNull: true },
         cutReport: { type: DataTypes.JSONB, allowNull: true },
+        cutSheetReceivedAt: { type: DataTypes.DATE, allowNull: true },
         acceptedByRoles: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         stageEnteredAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
         stageDueAt: { type: DataTypes.DATE, allowNull: true },

@@ -7,6 +7,7 @@ import { CompanySettingModel } from './company-setting';
 import { FactoryModel } from './factory';
 import { initRegistryModels } from './registry';
 import { initRequestModels } from './requests';
+import { initToolLifeModels } from './tool-life';
 import { UserModel } from './user';
 
 export function initModels(sequelize: Sequelize) {
@@ -16,8 +17,10 @@ export function initModels(sequelize: Sequelize) {
   UserModel.belongsTo(FactoryModel, { as: 'factory', foreignKey: 'factoryId' });
   initRegistryModels(sequelize);
   initRequestModels(sequelize);
+  initToolLifeModels(sequelize);
 }
 
 export { AuditEventModel, BrandModel, CompanySettingModel, FactoryModel, UserModel };
 export { BillOfPartsModel, PartModel, ProductModel, ToolModel, ToolRevisionModel } from './registry';
 export { AttachmentModel, ChangeItemModel, ChangeRequestModel, SignOffModel } from './requests';
+export { ToolShotReadingModel } from './tool-life';

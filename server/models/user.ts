@@ -19,6 +19,8 @@ export class UserModel extends Model<InferAttributes<UserModel>, InferCreationAt
   declare passwordHash: string | null;
   declare active: CreationOptional<boolean>;
   declare timeZone: CreationOptional<string>;
+  /** 'en' or 'zh-Hans' (shared/i18n): screens, mail and error messages. */
+  declare language: CreationOptional<string>;
   declare factoryId: string | null;
   declare inviteTokenHash: CreationOptional<string | null>;
   declare inviteExpiresAt: CreationOptional<Date | null>;
@@ -44,6 +46,7 @@ export class UserModel extends Model<InferAttributes<UserModel>, InferCreationAt
         passwordHash: { type: DataTypes.STRING, allowNull: true },
         active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
         timeZone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'UTC' },
+        language: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'en' },
         factoryId: { type: DataTypes.UUID, allowNull: true },
         inviteTokenHash: { type: DataTypes.STRING(64), allowNull: true },
         inviteExpiresAt: { type: DataTypes.DATE, allowNull: true },

@@ -1,18 +1,11 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import { saveNumbersInput } from '../../shared/schemas/numbers';
 import { roles } from '../../shared/schemas/users';
 import { actorOf, requireRole } from '../lib/auth';
-import { AppError } from '../lib/errors';
 import { deps } from '../lib/validate';
 import { getRequestNumbers, getToolOpenPlans, saveRequestNumbers } from '../services/request-numbers';
+import { idOf } from '../lib/params';
 
-/** A path id that is not a UUID names nothing: 404, like an id that does not exist. */
-const idOf = (raw: unknown, what: string) => {
-  const parsed = z.uuid().safeParse(raw);
-  if (!parsed.success) throw new AppError('not_found', `${what} was not found`, 404);
-  return parsed.data;
-};
 
 /**
  * The numbers behind a change. Read: everyone who may see the request except toolmakers (prices and

@@ -24,13 +24,8 @@ import { deps, parseQuery } from '../lib/validate';
 import * as products from '../services/products';
 import { importRegistryCsv, toolsToCsv } from '../services/registry-csv';
 import * as tools from '../services/tools';
+import { idOf } from '../lib/params';
 
-/** A path id that is not a UUID names nothing: 404, like an id that does not exist. */
-const idOf = (raw: unknown, what: string) => {
-  const parsed = z.string().uuid().safeParse(raw);
-  if (!parsed.success) throw new AppError('not_found', `${what} was not found`, 404);
-  return parsed.data;
-};
 
 const csvBody = express.text({ type: ['text/csv', 'text/plain', 'application/csv', 'application/vnd.ms-excel'], limit: '5mb' });
 const jsonCsv = z.object({ csv: z.string({ message: 'Send the CSV text as "csv"' }).min(1, { message: 'The CSV is empty' }) });

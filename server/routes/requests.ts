@@ -10,13 +10,8 @@ import { deps, parseQuery } from '../lib/validate';
 import { checkMayUpload, deleteAttachment, readAttachment, uploadAttachment } from '../services/request-attachments';
 import * as requests from '../services/requests';
 import { buildCutSheet, papers } from '../services/cut-sheet';
+import { idOf } from '../lib/params';
 
-/** A path id that is not a UUID names nothing: 404, like an id that does not exist. */
-const idOf = (raw: unknown, what: string) => {
-  const parsed = z.uuid().safeParse(raw);
-  if (!parsed.success) throw new AppError('not_found', `${what} was not found`, 404);
-  return parsed.data;
-};
 
 const anyRole = requireRole(...roles);
 const MB = MAX_UPLOAD_BYTES / 1024 / 1024;

@@ -2,11 +2,11 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { createUserInput, roleSchema, updateUserInput } from '../../shared/schemas/users';
 import { actorOf, requireRole } from '../lib/auth';
+import { idOf } from '../lib/params';
 import { deps } from '../lib/validate';
 import * as users from '../services/users';
 
 const listQuery = z.object({ search: z.string().max(100).optional(), role: roleSchema.optional() });
-const idParam = z.object({ id: z.string().uuid({ message: 'Not a user id' }) });
 
 export function usersRouter() {
   const r = Router();
@@ -18,7 +18,7 @@ export function usersRouter() {
     res.status(201).json(await users.createUser(deps(res), actorOf(res), createUserInput.parse(req.body)));
   });
   r.patch('/:id', async (req, res) => {
-    const { id } = idParam.parse(req.params);
+    const id = idOf(req.params.id, 'User');
     res.json(await users.updateUser(deps(res), actorOf(res), id, updateUserInput.parse(req.body)));
   });
   return r;

@@ -1,18 +1,13 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import { takeActionInput } from '../../shared/schemas/request-actions';
 import { roles } from '../../shared/schemas/users';
 import { actorOf, requireRole } from '../lib/auth';
 import { AppError } from '../lib/errors';
 import { deps } from '../lib/validate';
 import { listInbox, listSignOffs, takeAction, verifySignOffs } from '../services/workflow';
+import { idOf } from '../lib/params';
 
-/** A path id that is not a UUID names nothing: 404, like an id that does not exist. */
-const idOf = (raw: unknown) => {
-  const parsed = z.uuid().safeParse(raw);
-  if (!parsed.success) throw new AppError('not_found', 'Change request was not found', 404);
-  return parsed.data;
-};
+const requestIdOf = (raw: unknown) => idOf(raw, 'Change request');
 
 /** Idempotency-Key: optional; 1 to 200 visible ASCII characters (a UUID is a good choice). */
 function idempotencyKeyOf(raw: string | undefined) {
@@ -38,7 +33,7 @@ const anyRole = requireRole(...roles);
 export function workflowRouter() {
   const r = Router();
   r.post('/:id/actions', anyRole, async (req, res) => {
-    const id = idOf(req.params.id);
+    const id = requestIdOf(req.params.id);
     const idempotencyKey = idempotencyKeyOf(req.get('idempotency-key'));
     const input = takeActionInput.parse(req.body);
     const result = await takeAction(deps(res), actorOf(res), id, input, { idempotencyKey });
@@ -46,10 +41,10 @@ export function workflowRouter() {
     res.status(result.replayed ? 200 : 201).json(result);
   });
   r.get('/:id/sign-offs', anyRole, async (req, res) => {
-    res.json(await listSignOffs(actorOf(res), idOf(req.params.id)));
+    res.json(await listSignOffs(actorOf(res), requestIdOf(req.params.id)));
   });
   r.get('/:id/sign-offs/verify', anyRole, async (req, res) => {
-    res.json(await verifySignOffs(actorOf(res), idOf(req.params.id)));
+    res.json(await verifySignOffs(actorOf(res), requestIdOf(req.params.id)));
   });
   return r;
 }

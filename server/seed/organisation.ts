@@ -1,4 +1,5 @@
 // Demo company: Kestrel Bay Toy Co. (invented), its brands, factories and one user per role.
+import type { Language } from '../../shared/i18n';
 import type { Transaction } from 'sequelize';
 import { hashPassword } from '../lib/passwords';
 import { BrandModel, FactoryModel, UserModel } from '../models';
@@ -16,7 +17,7 @@ export const demoFactories = [
   { name: 'Pearl Delta Moldworks', city: 'Shenzhen', country: 'China', timeZone: 'Asia/Shanghai' },
 ];
 
-export const demoUsers: { email: string; name: string; role: Role; timeZone: string; brands: string[]; factory?: string }[] = [
+export const demoUsers: { email: string; name: string; role: Role; timeZone: string; brands: string[]; factory?: string; language?: Language }[] = [
   { email: 'designer@kestrelbay.example', name: 'Wren Okafor', role: 'designer', timeZone: 'America/Los_Angeles', brands: ['SR', 'MR'] },
   { email: 'engineer@kestrelbay.example', name: 'Tomas Ilves', role: 'engineer', timeZone: 'America/Los_Angeles', brands: ['SR', 'MR'] },
   { email: 'brandlead@kestrelbay.example', name: 'Priya Halloran', role: 'brand_lead', timeZone: 'America/New_York', brands: ['SR'] },
@@ -24,6 +25,8 @@ export const demoUsers: { email: string; name: string; role: Role; timeZone: str
   { email: 'admin@kestrelbay.example', name: 'Sam Dubois', role: 'admin', timeZone: 'UTC', brands: [] },
   { email: 'racerslead@kestrelbay.example', name: 'Marek Lindqvist', role: 'brand_lead', timeZone: 'Europe/London', brands: ['MR'] },
   { email: 'toolmaker@pearldelta.example', name: 'Lam Ka-yan', role: 'toolmaker', timeZone: 'Asia/Shanghai', brands: [], factory: 'Pearl Delta Moldworks' },
+  // Reads Chinese first: screens and mail in simplified Chinese.
+  { email: 'meilin@pearldelta.example', name: 'Huang Meilin', role: 'toolmaker', timeZone: 'Asia/Shanghai', brands: [], factory: 'Pearl Delta Moldworks', language: 'zh-Hans' },
 ];
 
 /** Idempotent: finds by natural key, creates what is missing, leaves edited rows alone. */
@@ -44,7 +47,7 @@ export async function seedOrganisation(transaction: Transaction) {
     let row = await UserModel.findOne({ where: { email: u.email }, transaction });
     if (!row) {
       row = await UserModel.create(
-        { email: u.email, name: u.name, role: u.role, timeZone: u.timeZone, passwordHash: hash, factoryId: u.factory ? factories.get(u.factory)!.id : null },
+        { email: u.email, name: u.name, role: u.role, timeZone: u.timeZone, language: u.language ?? 'en', passwordHash: hash, factoryId: u.factory ? factories.get(u.factory)!.id : null },
         { transaction },
       );
       await (row as unknown as { setBrands(ids: string[], o: object): Promise<void> }).setBrands(

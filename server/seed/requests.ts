@@ -54,11 +54,11 @@ export interface SeedStep {
   daysAgo: number;
   comment?: string;
   target?: 'engineering_review' | 'draft';
-  cut?: { actualCostCents: number; note: string };
+  /** The cut report: the trial's shots are added to the tool's counter; measured per cut item, in order. */
+  cut?: { actualCostCents: number; currency: string; note: string; trialShots: number; firstArticle: { intended: string; tolerance: string; measured: string }[] };
   retestNote?: string;
 }
 
-export interface SeedRequest {
 export interface SeedEstimate {
   currency: string;
   modificationCostCents: number;
@@ -68,15 +68,16 @@ export interface SeedEstimate {
   duplicateToolCents?: number;
 }
 
+export interface SeedRequest {
   toolCode: string;
   title: string;
   reason: string;
   derivativeSku: string | null;
-  targetInDays: number | null;
   /** Why the change is for no product (a request without a derivative past its draft says why). */
   noDerivativeReason?: string;
   /** The engineer's estimate and its currency, entered before the review is signed. */
   estimate?: SeedEstimate;
+  targetInDays: number | null;
   status: RequestState;
   submitter: string;
   items: SeedItem[];
@@ -266,8 +267,8 @@ export async function seedRequests(transaction: Transaction, org: Org, registry:
         reason: spec.reason,
         derivativeProductId: spec.derivativeSku ? await productId(spec.derivativeSku, transaction) : null,
         newDerivative: null,
-        targetDate: spec.targetInDays === null ? null : addDays(spec.targetInDays),
         noDerivativeReason: spec.noDerivativeReason ?? null,
+        targetDate: spec.targetInDays === null ? null : addDays(spec.targetInDays),
         items,
         movedProductIds: await productIds(spec.movedSkus ?? [], transaction),
       },

@@ -13,7 +13,7 @@
 import type { Transaction } from 'sequelize';
 import type { TakeActionInput } from '../../shared/schemas/request-actions';
 import type { Actor } from '../lib/auth';
-import { ChangeRequestModel, ToolModel } from '../models';
+import { ChangeItemModel, ChangeRequestModel, ToolModel } from '../models';
 import { applyAction } from '../services/workflow';
 import { DEMO_PASSWORD } from './organisation';
 import { EMPTY_PLAN } from '../../shared/domain/request-numbers';
@@ -27,6 +27,13 @@ const PEARL_DELTA_TOOLMAKER = 'toolmaker@pearldelta.example';
 
 const DAY = 86_400_000;
 
+/** A drawn stand-in for a photo of a first-shot part on the inspection table (640 x 480). */
+const firstShotPhoto =
+  '<svg xmlns="http://www.w3.org/2000/svg" width="640" height="480" viewBox="0 0 640 480"><rect width="640" height="480" fill="#E8E4DA"/>' +
+  '<rect x="140" y="150" width="360" height="180" rx="24" fill="#C2410C" stroke="#17212B" stroke-width="4"/>' +
+  '<rect x="180" y="190" width="280" height="100" rx="12" fill="none" stroke="#17212B" stroke-width="6"/>' +
+  '<line x1="100" y1="380" x2="540" y2="380" stroke="#17212B" stroke-width="3"/></svg>';
+
 export const workflowDemoRequests: SeedRequest[] = [
   {
     toolCode: 'KB-T-0420',
@@ -34,6 +41,8 @@ export const workflowDemoRequests: SeedRequest[] = [
     reason:
       'Retail feedback: the wing feathers read flat under store lighting. A deeper texture in the wing cavities gives the paint wash something to catch. The Osprey itself moves to the new revision.',
     derivativeSku: null,
+    noDerivativeReason: 'The Osprey itself moves to the new revision: a refresh of the figure in line, not a new product.',
+    estimate: { currency: 'USD', modificationCostCents: 240_000, leadDays: 15, trialRoundsExpected: 1 },
     targetInDays: 60,
     status: 'brand_approval',
     submitter: DESIGNER,
@@ -41,8 +50,6 @@ export const workflowDemoRequests: SeedRequest[] = [
       {
         part: 'Wing pair',
         effect: 'surface_only',
-    noDerivativeReason: 'The Osprey itself moves to the new revision: a refresh of the figure in line, not a new product.',
-    estimate: { currency: 'USD', modificationCostCents: 240_000, leadDays: 15, trialRoundsExpected: 1 },
         method: 'texture',
         size: '0.15',
         unit: 'mm',
@@ -62,6 +69,8 @@ export const workflowDemoRequests: SeedRequest[] = [
     title: 'Anniversary logo on a replacement display-stand insert',
     reason: 'The 25th-anniversary wave ships on a stand with the anniversary logo. A replacement stand insert keeps the current one for the regular line.',
     derivativeSku: null,
+    noDerivativeReason: 'The anniversary wave re-uses the figures in line; only the stand changes, on its own insert.',
+    estimate: { currency: 'USD', modificationCostCents: 310_000, leadDays: 20, trialRoundsExpected: 1 },
     targetInDays: 45,
     status: 'cut_authorized',
     submitter: DESIGNER,
@@ -69,8 +78,6 @@ export const workflowDemoRequests: SeedRequest[] = [
       {
         part: 'Display stand',
         effect: 'insert_swapped',
-    noDerivativeReason: 'The anniversary wave re-uses the figures in line; only the stand changes, on its own insert.',
-    estimate: { currency: 'USD', modificationCostCents: 310_000, leadDays: 20, trialRoundsExpected: 1 },
         method: 'new_insert',
         size: '62',
         unit: 'mm',
@@ -90,6 +97,8 @@ export const workflowDemoRequests: SeedRequest[] = [
     title: 'Thicker roll-cage bars on the Dune Buggy',
     reason: 'Returns show roll cages snapping at the rear hoop. Bars 0.5 mm thicker pass the drop test in the prototype; the Dune Buggy moves to the new revision.',
     derivativeSku: null,
+    noDerivativeReason: 'A fix to the Dune Buggy in line, which moves to the new revision.',
+    estimate: { currency: 'USD', modificationCostCents: 180_000, leadDays: 12, trialRoundsExpected: 1 },
     targetInDays: 30,
     status: 'samples_review',
     submitter: DESIGNER,
@@ -97,8 +106,6 @@ export const workflowDemoRequests: SeedRequest[] = [
       {
         part: 'Roll cage',
         effect: 'gains_plastic',
-    noDerivativeReason: 'A fix to the Dune Buggy in line, which moves to the new revision.',
-    estimate: { currency: 'USD', modificationCostCents: 180_000, leadDays: 12, trialRoundsExpected: 1 },
         method: 'cut',
         size: '0.5',
         unit: 'mm',
@@ -107,12 +114,24 @@ export const workflowDemoRequests: SeedRequest[] = [
       },
     ],
     movedSkus: ['MR-2001'],
-    images: [],
+    images: [{ kind: 'sample', filename: 'roll-cage-first-shot.png', svg: firstShotPhoto }],
     history: [
       { by: DESIGNER, action: 'submit', daysAgo: 24 },
       { by: ENGINEER, action: 'sign_review', daysAgo: 22 },
       { by: RACERS_LEAD, action: 'approve', daysAgo: 21, comment: 'Go: the returns cost more than the cut.' },
-      { by: PEARL_DELTA_TOOLMAKER, action: 'record_cut', daysAgo: 6, cut: { actualCostCents: 186_000, note: 'Cut by EDM, both cage cavities; first shots taken on the same day.' } },
+      { by: PEARL_DELTA_TOOLMAKER, action: 'confirm_receipt', daysAgo: 20 },
+      {
+        by: PEARL_DELTA_TOOLMAKER,
+        action: 'record_cut',
+        daysAgo: 6,
+        cut: {
+          actualCostCents: 186_000,
+          currency: 'USD',
+          note: 'Cut by EDM, both cage cavities; first shots taken on the same day.',
+          trialShots: 120,
+          firstArticle: [{ intended: '2.50', tolerance: '0.05', measured: '2.53' }],
+        },
+      },
       {
         by: DESIGNER,
         action: 'accept_samples',
@@ -127,6 +146,8 @@ export const workflowDemoRequests: SeedRequest[] = [
     title: 'Stiffening rib under the Dune Buggy chassis',
     reason: 'The chassis flexes when the body is clipped on. A 1.2 mm rib under the floor stops it; all three vehicles that use the chassis move to the new revision.',
     derivativeSku: null,
+    noDerivativeReason: 'A fix to the chassis of three vehicles in line, which all move to the new revision.',
+    estimate: { currency: 'USD', modificationCostCents: 95_000, leadDays: 10, trialRoundsExpected: 1 },
     targetInDays: null,
     status: 'closed',
     submitter: DESIGNER,
@@ -142,14 +163,24 @@ export const workflowDemoRequests: SeedRequest[] = [
       },
     ],
     movedSkus: ['MR-2001', 'MR-2002', 'MR-2101'],
-    images: [],
+    images: [{ kind: 'sample', filename: 'chassis-first-shot.png', svg: firstShotPhoto }],
     history: [
       { by: DESIGNER, action: 'submit', daysAgo: 58 },
       { by: ENGINEER, action: 'sign_review', daysAgo: 55 },
-    noDerivativeReason: 'A fix to the chassis of three vehicles in line, which all move to the new revision.',
-    estimate: { currency: 'USD', modificationCostCents: 95_000, leadDays: 10, trialRoundsExpected: 1 },
       { by: RACERS_LEAD, action: 'approve', daysAgo: 54 },
-      { by: PEARL_DELTA_TOOLMAKER, action: 'record_cut', daysAgo: 40, cut: { actualCostCents: 94_000, note: 'Rib channel milled; no change to ejection.' } },
+      { by: PEARL_DELTA_TOOLMAKER, action: 'confirm_receipt', daysAgo: 53 },
+      {
+        by: PEARL_DELTA_TOOLMAKER,
+        action: 'record_cut',
+        daysAgo: 40,
+        cut: {
+          actualCostCents: 94_000,
+          currency: 'USD',
+          note: 'Rib channel milled; no change to ejection.',
+          trialShots: 80,
+          firstArticle: [{ intended: '1.20', tolerance: '0.05', measured: '1.18' }],
+        },
+      },
       { by: ENGINEER, action: 'accept_samples', daysAgo: 37, comment: 'Flex test passed; dimensions within the drawing.' },
       { by: DESIGNER, action: 'accept_samples', daysAgo: 36 },
     ],
@@ -159,6 +190,8 @@ export const workflowDemoRequests: SeedRequest[] = [
     title: 'Spiky crest on the Heron head for a Night Heron',
     reason: 'A night-heron variant with a raised crest of thin spikes.',
     derivativeSku: null,
+    noDerivativeReason: 'The Night Heron is not in the product registry yet: it is added once the crest is agreed.',
+    estimate: { currency: 'USD', modificationCostCents: 420_000, leadDays: 25, trialRoundsExpected: 2 },
     targetInDays: null,
     status: 'declined',
     submitter: DESIGNER,
@@ -190,8 +223,6 @@ export const workflowDemoRequests: SeedRequest[] = [
     title: 'Taller rear spoiler for the Turbo',
     reason: 'A taller spoiler for the Turbo sample run.',
     derivativeSku: 'MR-2101',
-    noDerivativeReason: 'The Night Heron is not in the product registry yet: it is added once the crest is agreed.',
-    estimate: { currency: 'USD', modificationCostCents: 420_000, leadDays: 25, trialRoundsExpected: 2 },
     targetInDays: null,
     status: 'withdrawn',
     submitter: DESIGNER,
@@ -218,6 +249,7 @@ export async function runSeedHistory(transaction: Transaction, requestId: string
   for (const step of steps) {
     const at = new Date(now - step.daysAgo * DAY);
     const actor = await actorFor(step.by);
+    if (step.action === 'sign_review' && spec.estimate) await enterEstimate(transaction, requestId, spec.estimate);
     await applyAction({ sequelize: ChangeRequestModel.sequelize!, transaction }, actor, requestId, await inputFor(transaction, requestId, step, at), { at });
   }
   const r = (await ChangeRequestModel.findByPk(requestId, { transaction }))!;
@@ -230,23 +262,6 @@ export async function runSeedHistory(transaction: Transaction, requestId: string
   });
 }
 
-async function inputFor(transaction: Transaction, id: string, step: SeedStep, at: Date): Promise<TakeActionInput> {
-  const r = (await ChangeRequestModel.findByPk(id, { transaction }))!;
-  const input: TakeActionInput = { action: step.action, version: r.version };
-  if (step.comment) input.comment = step.comment;
-  if (step.target) input.target = step.target;
-  if (step.retestNote) input.retestNote = step.retestNote;
-  if (step.cut) input.cut = { ...step.cut, cutOn: at.toISOString().slice(0, 10) };
-  if (step.action === 'approve' && r.irreversible) {
-    // The demo brand lead confirms like anyone else: every ended product, the tool code, the password.
-    const tool = (await ToolModel.findByPk(r.toolId, { attributes: ['code'], transaction }))!;
-    input.password = DEMO_PASSWORD;
-    input.typedToolCode = tool.code;
-    input.confirmedProductIds = [...r.endedProductIds];
-  }
-  return input;
-}
-    if (step.action === 'sign_review' && spec.estimate) await enterEstimate(transaction, requestId, spec.estimate);
 /** The engineer's estimate and its currency, entered during the review (the review's gate needs them). */
 async function enterEstimate(transaction: Transaction, id: string, estimate: SeedEstimate) {
   const r = (await ChangeRequestModel.findByPk(id, { transaction }))!;
@@ -256,3 +271,33 @@ async function enterEstimate(transaction: Transaction, id: string, estimate: See
   await r.save({ transaction });
 }
 
+async function inputFor(transaction: Transaction, id: string, step: SeedStep, at: Date): Promise<TakeActionInput> {
+  const r = (await ChangeRequestModel.findByPk(id, { transaction }))!;
+  const input: TakeActionInput = { action: step.action, version: r.version };
+  if (step.comment) input.comment = step.comment;
+  if (step.target) input.target = step.target;
+  if (step.retestNote) input.retestNote = step.retestNote;
+  if (step.cut) {
+    // The trial runs the day of the cut; the counter reads the tool's shots plus the trial's.
+    const tool = (await ToolModel.findByPk(r.toolId, { attributes: ['id', 'shotCount'], transaction }))!;
+    const items = await ChangeItemModel.findAll({ where: { requestId: id }, attributes: ['id', 'position'], order: [['position', 'ASC']], transaction });
+    const day = at.toISOString().slice(0, 10);
+    const { firstArticle, trialShots, ...rest } = step.cut;
+    input.cut = {
+      ...rest,
+      cutOn: day,
+      trialOn: day,
+      trialShots,
+      shotReading: Number(tool.shotCount) + trialShots,
+      firstArticle: items.map((item, n) => ({ itemId: item.id, ...firstArticle[n]! })),
+    };
+  }
+  if (step.action === 'approve' && r.irreversible) {
+    // The demo brand lead confirms like anyone else: every ended product, the tool code, the password.
+    const tool = (await ToolModel.findByPk(r.toolId, { attributes: ['code'], transaction }))!;
+    input.password = DEMO_PASSWORD;
+    input.typedToolCode = tool.code;
+    input.confirmedProductIds = [...r.endedProductIds];
+  }
+  return input;
+}

@@ -33,6 +33,8 @@ export interface RequestAccessFacts {
   /** The tool's status, when known: a disposed tool's requests are read-only. */
   tool: { brandId: string; factoryId: string; status?: string };
   acceptedByRoles?: readonly string[];
+  /** When the factory confirmed receipt of the cut sheet (null: not yet). */
+  cutSheetReceivedAt?: Date | null;
 }
 
 export function canSeeRequest(actor: Actor, r: RequestAccessFacts): boolean {
@@ -77,6 +79,7 @@ export function actorContext(actor: Actor, r: RequestAccessFacts): ActorContext 
     isOwnBrand: actor.brandIds.includes(r.tool.brandId),
     isOwnFactory: actor.role === 'toolmaker' && actor.factoryId !== null && actor.factoryId === r.tool.factoryId,
     alreadyAccepted: (r.acceptedByRoles ?? []).filter((x): x is 'designer' | 'engineer' => isAcceptanceRole(x as never)),
+    receiptConfirmed: !!r.cutSheetReceivedAt,
   };
 }
 

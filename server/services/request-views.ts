@@ -115,6 +115,7 @@ export const accessFacts = (r: ChangeRequestModel): RequestAccessFacts => ({
   submitterId: r.submitterId,
   tool: { brandId: r.tool!.brandId, factoryId: r.tool!.factoryId, status: r.tool!.status },
   acceptedByRoles: r.acceptedByRoles,
+  cutSheetReceivedAt: r.cutSheetReceivedAt ?? null,
 });
 
 /**
@@ -221,14 +222,14 @@ export async function buildDetail(actor: Actor, r: ChangeRequestModel, transacti
   const t = r.tool!;
   const permissions = permissionsFor(actor, accessFacts(r));
   const view = workflowView({ r, actions: permissions.actions, impact, retestRequired: retestRequired(items), items, tool: t, signOffs: await loadSignOffs(r.id, transaction) });
-  return {
   const gateContext = await loadGateFacts(r, items, impact, transaction);
+  return {
     ...toSummary(r),
     reason: r.reason,
     targetDate: r.targetDate,
     derivativeProduct: r.derivativeProduct ? { id: r.derivativeProduct.id, sku: r.derivativeProduct.sku, name: r.derivativeProduct.name } : null,
-    tool: {
     noDerivativeReason: r.noDerivativeReason ?? null,
+    tool: {
       id: t.id,
       code: t.code,
       name: t.name,
@@ -247,10 +248,10 @@ export async function buildDetail(actor: Actor, r: ChangeRequestModel, transacti
     permissions,
     signOffs: view.signOffs,
     workflow: view.workflow,
-  };
     gates: gatesFor(r, gateContext.facts),
     // Prices and margins stay with the brand and engineering.
     valueAtRisk: actor.role === 'toolmaker' ? null : valueAtRiskOf(gateContext),
+  };
 }
 
 export async function detailById(actor: Actor, id: string, transaction?: Transaction) {
@@ -266,8 +267,8 @@ export function auditSnapshot(r: ChangeRequestModel, items: readonly ChangeItemM
     reason: r.reason,
     status: r.status as RequestState,
     derivativeProductId: r.derivativeProductId,
-    targetDate: r.targetDate,
     noDerivativeReason: r.noDerivativeReason ?? null,
+    targetDate: r.targetDate,
     submitterId: r.submitterId,
     movedProductIds: r.movedProductIds,
     irreversible: r.irreversible,

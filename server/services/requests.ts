@@ -15,7 +15,7 @@ import {
 } from '../../shared/schemas/change-requests';
 import type { Actor } from '../lib/auth';
 import { AppError } from '../lib/errors';
-import { ChangeItemModel, ChangeRequestModel, ProductModel, ToolModel } from '../models';
+import { ChangeItemModel, ChangeRequestModel, ProductModel, type ToolModel } from '../models';
 import { recordAudit } from './audit';
 import { editableFieldsFor, editRefusal, visibilitySql } from './request-access';
 import {

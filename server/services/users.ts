@@ -1,5 +1,6 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { Op } from 'sequelize';
+import { isLanguage, type Language } from '../../shared/i18n';
 import type { CreateUserInput, Me, UpdateUserInput, User } from '../../shared/schemas/users';
 import { createUserInput } from '../../shared/schemas/users';
 import type { AppDeps } from '../app';
@@ -27,6 +28,7 @@ export function toUserDto(u: UserModel): User {
     role: u.role,
     active: u.active,
     timeZone: u.timeZone,
+    language: isLanguage(u.language) ? u.language : 'en',
     factoryId: u.factoryId,
     brandIds: (u.brands ?? []).map((b) => b.id),
     invitationPending: !u.passwordHash && !!u.inviteTokenHash,
@@ -38,6 +40,18 @@ export async function getMe(id: string): Promise<Me> {
   const u = await UserModel.findByPk(id, { include: [...withBrands, { model: FactoryModel, as: 'factory' }] });
   if (!u) throw notFound('User');
   return { ...toUserDto(u), factoryName: u.factory?.name ?? null, brandNames: (u.brands ?? []).map((b) => b.name) };
+}
+
+/** The caller's own language for screens and mail. */
+export async function setMyLanguage(actor: Actor, language: Language): Promise<Me> {
+  await UserModel.sequelize!.transaction(async (transaction) => {
+    const u = (await UserModel.findByPk(actor.id, { transaction, lock: transaction.LOCK.UPDATE }))!;
+    const before = { language: u.language };
+    u.language = language;
+    await u.save({ transaction });
+    await recordAudit(transaction, actor, 'user.language', 'user', u.id, before, { language });
+  });
+  return getMe(actor.id);
 }
 
 export async function listUsers(q: { search?: string; role?: string }): Promise<User[]> {

@@ -62,6 +62,18 @@ export function cutReportOf(v: unknown): CutReport | null {
     note: c.note ?? '',
     recordedBy: c.recordedBy ?? { id: '00000000-0000-0000-0000-000000000000', name: '' },
     recordedAt: c.recordedAt ?? '',
+    ...(c.currency !== undefined
+      ? {
+          currency: c.currency,
+          trialOn: c.trialOn,
+          trialShots: c.trialShots,
+          shotReading: c.shotReading,
+          previousShotCount: c.previousShotCount,
+          photoIds: c.photoIds ?? [],
+          firstArticle: c.firstArticle ?? [],
+          firstArticlePass: c.firstArticlePass,
+        }
+      : {}),
   };
 }
 

@@ -8,6 +8,7 @@ import type { GateId } from './gates';
 //   engineering_review --return_to_draft--> draft
 //   brand_approval --return--> engineering_review | draft          brand_approval --decline--> declined
 //   samples_review --rework--> cut_authorized
+//   cut_authorized --confirm_receipt (the factory's toolmaker; state unchanged)--> cut_authorized, before record_cut
 //   draft | engineering_review | brand_approval --withdraw (submitter or admin)--> withdrawn
 //
 // Every action except withdraw is a signature: it is recorded as a sign-off with its meaning in words.
@@ -32,6 +33,7 @@ export const requestActions = [
   'approve',
   'return',
   'decline',
+  'confirm_receipt',
   'record_cut',
   'accept_samples',
   'rework',
@@ -78,6 +80,7 @@ export type SignOffDecision =
   | 'returned'
   | 'approved'
   | 'declined'
+  | 'received'
   | 'cut_recorded'
   | 'accepted'
   | 'rework'
@@ -137,6 +140,10 @@ export interface ActionRule {
   collectsAcceptance?: boolean;
   /** rework: forget earlier acceptances of the samples. */
   clearsAcceptances?: boolean;
+  /** confirm_receipt: the factory's receipt of the cut sheet, once per release to the factory. */
+  receipt?: boolean;
+  /** record_cut: refused until the factory has confirmed receipt of the cut sheet. */
+  needsReceipt?: boolean;
   /** What must be on the request before the action may be taken (gates.ts). */
   gate?: GateId;
 }
@@ -296,6 +303,19 @@ export const lifecycle: { states: Record<RequestState, StateRule>; actions: Reco
       needs: optional({ comment: 'required' }),
       awaited: true,
     },
+    confirm_receipt: {
+      label: 'Confirm receipt of the cut sheet',
+      icon: 'file-sign',
+      from: ['cut_authorized'],
+      to: ['cut_authorized'],
+      who: { toolmaker: 'own_factory' },
+      signature: true,
+      decision: 'received',
+      meaning: { text: 'I confirm that the factory received the signed cut sheet for tool {toolCode} and will cut from it.' },
+      needs: optional(),
+      awaited: true,
+      receipt: true,
+    },
     record_cut: {
       label: 'Record the cut as done',
       icon: 'content-cut',
@@ -307,6 +327,7 @@ export const lifecycle: { states: Record<RequestState, StateRule>; actions: Reco
       meaning: { text: 'I confirm that tool {toolCode} was changed as the signed change notice describes and is ready for first samples.' },
       needs: optional(),
       awaited: true,
+      needsReceipt: true,
     },
     accept_samples: {
       label: 'Accept first samples',
@@ -365,6 +386,8 @@ export interface ActorContext {
   isOwnFactory?: boolean;
   /** Roles that have already accepted the first samples in this round. */
   alreadyAccepted?: readonly AcceptanceRole[];
+  /** The factory has confirmed receipt of the cut sheet since the brand's approval. */
+  receiptConfirmed?: boolean;
 }
 
 export type Refusal = { ok: false; code: 'wrong_state' | 'forbidden'; message: string };
@@ -432,6 +455,9 @@ export function canTake(action: RequestAction, state: RequestState, role: Role, 
   }
   if (rule.collectsAcceptance && isAcceptanceRole(role) && (ctx.alreadyAccepted ?? []).includes(role)) {
     return { ok: false, code: 'wrong_state', message: `The first samples were already accepted for the ${lower(roleLabels[role])}.` };
+  }
+  if (rule.receipt && ctx.receiptConfirmed) {
+    return { ok: false, code: 'wrong_state', message: 'The factory has already confirmed receipt of the cut sheet: record the cut when it is done.' };
   }
   return { ok: true };
 }

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { boundedDate } from './dates';
-import type { ImpactResult, BillOfPartsLine, ImpactPart, ImpactProduct, ImpactTool } from '../domain/impact';
+import type { ImpactResult, BillOfPartsLine, ImpactPart, ImpactTool } from '../domain/impact';
 import type { SafetyReview } from '../domain/safety';
 import type { GateGap } from '../domain/gates';
 import type { ValueAtRiskResult } from '../domain/value-at-risk';

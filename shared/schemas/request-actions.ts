@@ -7,6 +7,18 @@ import { signOffSchema } from './sign-offs';
 export const requestStateSchema = z.enum(requestStates);
 export const requestActionSchema = z.enum(requestActions);
 
+const decimalText = (what: string) =>
+  z.string({ message: `Enter the ${what}` }).trim().regex(/^-?\d{1,6}(\.\d{1,4})?$/, { message: `Enter the ${what} as a number, e.g. 12.40` });
+
+/** One cut item's first-article line, in the item's unit. */
+export const firstArticleLine = z.object({
+  itemId: z.uuid({ message: 'Pick the cut item' }),
+  intended: decimalText('intended dimension'),
+  tolerance: decimalText('tolerance').refine((v) => !v.startsWith('-'), { message: 'A tolerance cannot be negative' }),
+  measured: decimalText('measured dimension'),
+});
+export type FirstArticleLineInput = z.infer<typeof firstArticleLine>;
+
 /** The cut as the engineer or the factory's toolmaker reports it with "Record the cut as done". */
 export const cutReportInput = z.object({
   /** What the change actually cost, in whole cents (the tool's currency). */
@@ -18,6 +30,15 @@ export const cutReportInput = z.object({
   /** The day the tool was cut (not in the future). */
   cutOn: boundedDate('Use a date like 2027-03-31'),
   note: z.string().trim().max(4000, { message: 'Keep the note under 4000 characters' }).default(''),
+  /** The currency of the actual cost (ISO 4217). */
+  currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, { message: 'Use a three-letter currency code such as USD or CNY' }),
+  /** The mold trial that shot the first samples: its day and how many shots it ran. */
+  trialOn: boundedDate('Use a date like 2027-03-31'),
+  trialShots: z.number({ message: 'Enter how many shots the trial ran' }).int({ message: 'Whole shots only' }).min(1, { message: 'A trial runs at least one shot' }).max(10_000_000, { message: 'That is too many shots for a trial' }),
+  /** The tool's shot counter after the trial (it becomes the tool's shot count). */
+  shotReading: z.number({ message: 'Enter the shot counter reading' }).int({ message: 'Whole shots only' }).min(0, { message: 'A counter reading cannot be negative' }).max(1_000_000_000_000, { message: 'That reading is too large' }),
+  /** One line per cut item: the dimension measured on a molded sample against the intended one. */
+  firstArticle: z.array(firstArticleLine).min(1, { message: 'Measure every cut item on a molded sample' }).max(200),
 });
 export type CutReportInput = z.input<typeof cutReportInput>;
 

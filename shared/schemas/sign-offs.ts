@@ -9,13 +9,39 @@ const state = z.enum(requestStates);
 const action = z.enum(requestActions);
 const role = z.enum(roles);
 
-export const signOffDecisions = ['submitted', 'reviewed', 'returned', 'approved', 'declined', 'cut_recorded', 'accepted', 'rework', 'withdrawn'] as const;
+export const signOffDecisions = ['submitted', 'reviewed', 'returned', 'approved', 'declined', 'received', 'cut_recorded', 'accepted', 'rework', 'withdrawn'] as const;
+
+/** One cut item as measured on a molded sample (pass: within intended ± tolerance). */
+export const firstArticleResultSchema = z.object({
+  itemId: z.uuid(),
+  /** 0-based position of the cut item; shown as item position + 1. */
+  position: z.number().int(),
+  partName: z.string(),
+  unit: z.enum(['mm', 'in']),
+  intended: z.string(),
+  tolerance: z.string(),
+  measured: z.string(),
+  deviation: z.string(),
+  pass: z.boolean(),
+});
+export type FirstArticleResult = z.infer<typeof firstArticleResultSchema>;
 
 /** The cut as reported (stored on the request and in the sign-off that recorded it). */
 export const cutReportSchema = z.object({
   actualCostCents: z.number().int(),
   cutOn: z.string(),
   note: z.string(),
+  /** Cuts recorded before the first-article report carry only cost, date and note. */
+  currency: z.string().optional(),
+  trialOn: z.string().optional(),
+  trialShots: z.number().int().optional(),
+  shotReading: z.number().int().optional(),
+  /** The tool's shot count before this reading. */
+  previousShotCount: z.number().int().optional(),
+  /** The sample photos on the request when the cut was recorded. */
+  photoIds: z.array(z.uuid()).optional(),
+  firstArticle: z.array(firstArticleResultSchema).optional(),
+  firstArticlePass: z.boolean().optional(),
   recordedBy: z.object({ id: z.uuid(), name: z.string() }),
   /** UTC, ISO 8601. */
   recordedAt: z.string(),

@@ -2,14 +2,46 @@
 // fresh request of a scene (request-fixtures.ts) to any state through the real actions.
 import { randomUUID } from 'node:crypto';
 import type { RequestAction, RequestState } from '../../shared/domain/lifecycle';
-import { ChangeRequestModel, SignOffModel } from '../../server/models';
+import { ChangeItemModel, ChangeRequestModel, SignOffModel } from '../../server/models';
 import { PASSWORD, request, type openTestApp } from './helpers';
-import { createDraft, insertItem, ridgeItem, type Scene } from './request-fixtures';
+import { createDraft, insertItem, pngImage, ridgeItem, type Scene } from './request-fixtures';
 
 type App = ReturnType<typeof openTestApp>['app'];
 export type SceneUser = Scene['users'][keyof Scene['users']];
 
-export const CUT = { actualCostCents: 412_500, cutOn: '2026-11-20', note: 'Ridge cut in both head cavities; EDM finish.' };
+export const CUT = {
+  actualCostCents: 412_500,
+  currency: 'USD',
+  cutOn: '2026-11-20',
+  note: 'Ridge cut in both head cavities; EDM finish.',
+  trialOn: '2026-11-21',
+  trialShots: 150,
+};
+
+/** A full cut report for the request: the counter after the trial, and every cut item measured within tolerance. */
+export async function cutFor(id: string, over: Record<string, unknown> = {}) {
+  const r = (await ChangeRequestModel.findByPk(id, { include: [{ association: 'tool', attributes: ['id', 'shotCount'] }] }))!;
+  const items = await ChangeItemModel.findAll({ where: { requestId: id }, order: [['position', 'ASC']] });
+  return {
+    ...CUT,
+    shotReading: Number(r.tool!.shotCount) + CUT.trialShots,
+    firstArticle: items.map((i) => ({ itemId: i.id, intended: '12.40', tolerance: '0.05', measured: '12.43' })),
+    ...over,
+  };
+}
+
+/** What record_cut needs on the request first: the factory's receipt and a photo of the first samples. */
+export async function readyToCut(app: App, s: Scene, id: string) {
+  const receipt = await actWith(app)(s.users.toolmaker, id, 'confirm_receipt');
+  if (receipt.status !== 201) throw new Error(`confirm_receipt failed: ${receipt.status} ${JSON.stringify(receipt.body)}`);
+  await addSamplePhoto(app, s.users.toolmaker, id);
+}
+
+export async function addSamplePhoto(app: App, user: SceneUser, id: string) {
+  const res = await request(app).post(`/api/requests/${id}/attachments`).set(user.auth).field('kind', 'sample').attach('file', await pngImage(), 'first-shot.png');
+  if (res.status !== 201) throw new Error(`sample photo upload failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return res.body as { id: string };
+}
 
 /** An estimate that passes the review's gate (the costs of both ways to keep ended products too). */
 export const READY_ESTIMATE = { modificationCostCents: 412_500, leadDays: 21, trialRoundsExpected: 1, newInsertCents: 950_000, duplicateToolCents: 1_400_000 };
@@ -34,7 +66,7 @@ export async function bodyFor(id: string, action: RequestAction, extraIn: Record
   const r = (await ChangeRequestModel.findByPk(id, { include: [{ association: 'tool', attributes: ['code'] }] }))!;
   const body: Record<string, unknown> = { action, version: r.version };
   if (['return_to_draft', 'return', 'decline', 'rework', 'withdraw'].includes(action)) body.comment = `Because ${action}`;
-  if (action === 'record_cut') body.cut = CUT;
+  if (action === 'record_cut') body.cut = await cutFor(id);
   if (action === 'approve' && r.irreversible) {
     body.password = PASSWORD;
     body.typedToolCode = r.tool!.code;
@@ -91,6 +123,7 @@ export async function requestIn(app: App, s: Scene, state: RequestState, kind: '
   const d = await createDraft(app, s, { items: [item], ...body });
   const act = actWith(app);
   for (const [user, action] of pathTo(s, state)) {
+    if (action === 'record_cut') await readyToCut(app, s, d.id);
     const res = await act(user, d.id, action);
     if (res.status !== 201) throw new Error(`${action} failed on the way to ${state}: ${res.status} ${JSON.stringify(res.body)}`);
   }

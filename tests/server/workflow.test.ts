@@ -5,7 +5,7 @@ import { requestDetailSchema } from '../../shared/schemas/change-requests';
 import { AuditEventModel, BillOfPartsModel, ChangeRequestModel, ToolModel, ToolRevisionModel } from '../../server/models';
 import { openTestApp, request } from './helpers';
 import { insertItem, makeScene, type Scene } from './request-fixtures';
-import { actWith, CUT, requestIn, signOffCount, type SceneUser } from './workflow-fixtures';
+import { actWith, CUT, cutFor, readyToCut, requestIn, signOffCount, type SceneUser } from './workflow-fixtures';
 
 const t = openTestApp();
 afterAll(() => t.close());
@@ -57,6 +57,12 @@ const matrix: { action: RequestAction; from: RequestState; allowed: Who[]; refus
     refused: { designer: 403, otherDesigner: 403, engineer: 403, otherLead: 404, toolmaker: 404, otherToolmaker: 404, admin: 403 },
   },
   {
+    action: 'confirm_receipt',
+    from: 'cut_authorized',
+    allowed: ['toolmaker'],
+    refused: { designer: 403, otherDesigner: 403, engineer: 403, lead: 403, otherLead: 404, otherToolmaker: 404, admin: 403 },
+  },
+  {
     action: 'record_cut',
     from: 'cut_authorized',
     allowed: ['engineer', 'toolmaker'],
@@ -89,6 +95,7 @@ const expectedTo: Record<RequestAction, RequestState> = {
   approve: 'cut_authorized',
   return: 'engineering_review',
   decline: 'declined',
+  confirm_receipt: 'cut_authorized',
   record_cut: 'samples_review',
   accept_samples: 'samples_review', // one of the two acceptances
   rework: 'cut_authorized',
@@ -116,6 +123,7 @@ describe('every transition x every role', () => {
 
       for (const who of row.allowed) {
         const id = await requestIn(t.app, s, row.from);
+        if (row.action === 'record_cut') await readyToCut(t.app, s, id);
         const res = await act(s.users[who], id, row.action);
         expect([who, res.status]).toEqual([who, 201]);
         const body = takeActionResponseSchema.parse(res.body);
@@ -221,18 +229,19 @@ describe('what each action needs', () => {
   it('when the cut is recorded without a report, or dated in the future, then 400 on cut', async () => {
     const s = await makeScene();
     const id = await requestIn(t.app, s, 'cut_authorized');
+    await readyToCut(t.app, s, id);
     const none = await act(s.users.toolmaker, id, 'record_cut', { cut: undefined });
     expect(none.status).toBe(400);
     expect(none.body.error.fieldErrors.cut).toBeDefined();
-    const future = await act(s.users.toolmaker, id, 'record_cut', { cut: { ...CUT, cutOn: '2999-01-01' } });
+    const future = await act(s.users.toolmaker, id, 'record_cut', { cut: await cutFor(id, { cutOn: '2999-01-01' }) });
     expect(future.status).toBe(400);
     expect(future.body.error.fieldErrors['cut.cutOn']).toBeDefined();
-    const negative = await act(s.users.toolmaker, id, 'record_cut', { cut: { ...CUT, actualCostCents: -5 } });
+    const negative = await act(s.users.toolmaker, id, 'record_cut', { cut: await cutFor(id, { actualCostCents: -5 }) });
     expect(negative.status).toBe(400);
     expect(negative.body.error.fieldErrors['cut.actualCostCents']).toBeDefined();
-    const misplaced = await act(s.users.engineer, id, 'rework', { cut: CUT });
+    const misplaced = await act(s.users.engineer, id, 'rework', { cut: await cutFor(id) });
     expect(misplaced.status).toBe(400);
-    expect(await signOffCount(id)).toBe(3);
+    expect(await signOffCount(id)).toBe(4);
   });
 
   it('when a request with safety flags is accepted without a re-test note, then 400; with one, then the note is kept', async () => {
@@ -270,7 +279,7 @@ describe('effects of the transitions', () => {
     expect((await act(s.users.lead, id, 'approve')).status).toBe(201);
     const seen = await request(t.app).get(`/api/requests/${id}`).set(s.users.toolmaker.auth);
     expect(seen.status).toBe(200);
-    expect(seen.body.permissions.actions).toEqual(['record_cut']);
+    expect(seen.body.permissions.actions).toEqual(['confirm_receipt', 'record_cut']);
     expect((await request(t.app).get(`/api/requests/${id}`).set(s.users.otherToolmaker.auth)).status).toBe(404);
     expect((await ToolModel.findByPk(s.tool.id))!.status).toBe('in_change');
     expect(seen.body.workflow.stageDueAt).not.toBeNull();
@@ -279,9 +288,20 @@ describe('effects of the transitions', () => {
   it('when the toolmaker records the cut, then the report is stored with the signer and the request waits for the samples', async () => {
     const s = await makeScene();
     const id = await requestIn(t.app, s, 'cut_authorized');
-    const res = await act(s.users.toolmaker, id, 'record_cut');
+    await readyToCut(t.app, s, id);
+    const sent = await cutFor(id);
+    const res = await act(s.users.toolmaker, id, 'record_cut', { cut: sent });
     expect(res.status).toBe(201);
-    const cut = { ...CUT, recordedBy: { id: s.users.toolmaker.user.id, name: s.users.toolmaker.user.name }, recordedAt: expect.any(String) };
+    const cut = {
+      ...CUT,
+      shotReading: sent.shotReading,
+      previousShotCount: sent.shotReading - CUT.trialShots,
+      photoIds: [expect.any(String)],
+      firstArticle: [expect.objectContaining({ measured: '12.43', pass: true })],
+      firstArticlePass: true,
+      recordedBy: { id: s.users.toolmaker.user.id, name: s.users.toolmaker.user.name },
+      recordedAt: expect.any(String),
+    };
     expect(res.body.request.workflow.cutReport).toEqual(cut);
     expect(res.body.signOff.details.cut).toEqual(cut);
     expect(res.body.request.workflow.waitingFor.map((w: { role: string }) => w.role).sort()).toEqual(['designer', 'engineer']);
@@ -399,7 +419,7 @@ describe('inbox', () => {
     });
     expect(pick(await inbox(s.users.lead))).toEqual({ [approval]: ['approve', 'return', 'decline'] });
     expect(pick(await inbox(s.users.otherLead))).toEqual({});
-    expect(pick(await inbox(s.users.toolmaker))).toEqual({ [cut]: ['record_cut'] });
+    expect(pick(await inbox(s.users.toolmaker))).toEqual({ [cut]: ['confirm_receipt', 'record_cut'] });
     expect(pick(await inbox(s.users.otherToolmaker))).toEqual({});
     expect(await inbox(s.users.admin)).toEqual([]);
     const leadRow = (await inbox(s.users.lead)).find((r) => r.id === approval)!;

@@ -82,7 +82,9 @@ export function ActionForm({ request: r, action, onDone, onMovedOn, onCancel, re
   const submit = () => {
     const sent = { comment: comment.trim(), retestNote: retestNote.trim() };
     const found: FieldErrors = fieldMessages(checkSubmission(action, sent, factsOf(r)) ?? undefined);
-    let report: TakeActionInput['cut'];
+    // The fuller report (currency, mold trial, shot reading, first article) is asked for by the server,
+    // which names each missing field; the form sends what it collects so far.
+    let report: Partial<NonNullable<TakeActionInput['cut']>> | undefined;
     if (need.cutReport) {
       let cents: number | null = null;
       try {
@@ -103,7 +105,7 @@ export function ActionForm({ request: r, action, onDone, onMovedOn, onCancel, re
       version: r.version,
       ...(sent.comment ? { comment: sent.comment } : {}),
       ...(need.retestNote && sent.retestNote ? { retestNote: sent.retestNote } : {}),
-      ...(report ? { cut: report } : {}),
+      ...(report ? { cut: report as NonNullable<TakeActionInput['cut']> } : {}),
       ...(need.targets.length && target ? { target: target as 'engineering_review' | 'draft' } : {}),
     };
     take.mutate(
