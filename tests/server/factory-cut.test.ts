@@ -46,7 +46,7 @@ describe('receipt of the cut sheet', () => {
     const again = await act(s.users.toolmaker, id, 'confirm_receipt');
     expect([again.status, again.body.error.code]).toEqual([409, 'wrong_state']);
     const verify = await request(t.app).get(`/api/requests/${id}/sign-offs/verify`).set(s.users.engineer.auth);
-    expect(verify.body.ok).toBe(true);
+    expect(verify.body.intact).toBe(true);
   });
 
   it('when another factory\'s toolmaker confirms receipt, then 404 and nothing is signed', async () => {

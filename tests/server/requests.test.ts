@@ -347,7 +347,7 @@ describe('who sees a request', () => {
     await putInState(d.id, 'cut_authorized');
     const res = await get(s.users.toolmaker, `/api/requests/${d.id}`);
     expect(res.status).toBe(200);
-    expect(res.body.permissions).toMatchObject({ canEdit: false, canEditItems: false, canUpload: true, uploadKinds: ['sample'], actions: ['record_cut'] });
+    expect(res.body.permissions).toMatchObject({ canEdit: false, canEditItems: false, canUpload: true, uploadKinds: ['sample'], actions: ['confirm_receipt', 'record_cut'] });
     expect((await get(s.users.otherToolmaker, `/api/requests/${d.id}`)).status).toBe(404);
     for (const status of ['samples_review', 'closed'] as const) {
       await putInState(d.id, status);

@@ -193,9 +193,9 @@ describe('admin updates users', () => {
     expect((await UserModel.findByPk(user.id))?.factoryId).toBeNull();
   });
 
-  it('when the id is not a uuid or not a user, then 400 or 404', async () => {
+  it('when the id is not a uuid or not a user, then 404 either way (an id that is not a UUID names nothing)', async () => {
     const { auth } = await makeUser('admin');
-    expect((await request(t.app).patch('/api/users/not-an-id').set(auth).send({ name: 'Any Name' })).status).toBe(400);
+    expect((await request(t.app).patch('/api/users/not-an-id').set(auth).send({ name: 'Any Name' })).status).toBe(404);
     expect((await request(t.app).patch('/api/users/00000000-0000-4000-8000-000000000000').set(auth).send({ name: 'Any Name' })).status).toBe(404);
   });
 });

@@ -76,8 +76,8 @@ for (const action of requestActions) {
 }
 
 describe('lifecycle: who may take which action in which state', () => {
-  it('when the matrix is built, then it covers 10 actions x 8 states x 9 callers', () => {
-    expect(cases).toHaveLength(10 * 8 * 9);
+  it('when the matrix is built, then it covers 11 actions x 8 states x 9 callers', () => {
+    expect(cases).toHaveLength(11 * 8 * 9);
   });
 
   it.each(cases)('when %s is tried in %s by the %s, then %s', (action, state, name, expected) => {
@@ -197,8 +197,8 @@ describe('lifecycle: who acts next', () => {
     expect(whoActsNext('engineering_review')).toEqual([{ role: 'engineer', scope: 'any', actions: ['sign_review', 'return_to_draft'] }]);
     expect(whoActsNext('brand_approval')).toEqual([{ role: 'brand_lead', scope: 'own_brand', actions: ['approve', 'return', 'decline'] }]);
     expect(whoActsNext('cut_authorized')).toEqual([
+      { role: 'toolmaker', scope: 'own_factory', actions: ['confirm_receipt', 'record_cut'] },
       { role: 'engineer', scope: 'any', actions: ['record_cut'] },
-      { role: 'toolmaker', scope: 'own_factory', actions: ['record_cut'] },
     ]);
     expect(whoActsNext('samples_review').map((n) => n.role)).toEqual(['designer', 'engineer']);
     expect(whoActsNext('samples_review', { alreadyAccepted: ['engineer'] })).toEqual([
