@@ -69,6 +69,8 @@ fi
 if [ $e2e_ok = 1 ]; then
   SMTP_PORT="${E2E_SMTP_PORT:-1026}" MAIL_HTTP_PORT="${E2E_MAIL_HTTP_PORT:-8026}" PUBLIC_URL="$E2E_BASE_URL" LOG_LEVEL=warn NODE_ENV=production \
     SIGN_IN_LIMIT_PER_IP=10000 SIGN_IN_LIMIT_PER_EMAIL=10000 \
+    JWT_SECRET="$(node -e 'console.log(require("crypto").randomBytes(48).toString("base64"))')" \
+    RECORD_CHAIN_KEY="$(node -e 'console.log(require("crypto").randomBytes(48).toString("base64"))')" \
     node --import tsx scripts/e2e-stack.ts > .cache/e2e-stack.log 2>&1 &
   stack_pid=$!
   for _ in $(seq 1 120); do
